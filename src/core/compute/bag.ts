@@ -1,0 +1,191 @@
+import { D, ZERO, THOUSAND, sum } from '../decimal.ts';
+import { SPECIES_IDS, type SpeciesId } from '../species.ts';
+import type { Order, OrderLine, BaseUnit } from '../order.ts';
+import type { Policy } from '../policy.ts';
+import type { Product, Role } from '../catalog.ts';
+import { lineVolumeMl, perDayAmount } from './volumes.ts';
+
+/** One line of the computed bag: how much stock goes in and what it brings. */
+export interface BagLine {
+  line: OrderLine;
+  product: Product;
+  volumeMl: D;
+  /** The ordered amount per day in the line's base unit (null for the fill line). */
+  perDay: { amount: D; unit: BaseUnit } | null;
+  /** Ideal particles this line adds, mOsm (volume × the stock's particles per mL). */
+  particleMOsm: D;
+  /** Labelled osmolarity × volume, mOsm; the particle value when the stock has no label value. */
+  labelMOsm: D;
+  /** True when the stock has no labelled osmolarity (and is not water). */
+  labelMissing: boolean;
+  kcal: D;
+  aluminumMcg: D;
+}
+
+export interface Osmolarity {
+  particle: D;
+  labelSum: D;
+  reported: D;
+  method: 'particle' | 'labelSum';
+}
+
+export type EnergySource = 'dextrose' | 'aminoAcids' | 'lipid' | 'other';
+
+/** The bag as the engine computes it, at full precision. */
+export interface Bag {
+  order: Order;
+  lines: BagLine[];
+  /** Volume the bag really holds, mL (the ordered volume, or the sum of lines when they overflow or no line fills). */
+  finalVolumeMl: D;
+  /** Sum of the non-fill lines, mL. */
+  addedVolumeMl: D;
+  hours: D;
+  rateMlPerHour: D;
+  /** mmol per bag of every species. */
+  speciesMmol: Record<SpeciesId, D>;
+  grams: { dextrose: D; aminoAcids: D; lipid: D };
+  percent: { dextrose: D; aminoAcids: D; lipid: D };
+  kcal: Record<EnergySource, D> & { total: D; nonProtein: D };
+  nitrogenG: D;
+  /** Non-protein kcal per g nitrogen; null without amino acids. */
+  npcToN: D | null;
+  /** Glucose infusion rate, mg/kg/min over the infusion hours. */
+  girMgPerKgPerMin: D;
+  osmolarity: Osmolarity;
+  /** Ideal osmotic pressure at the policy's temperature, mmHg (van 't Hoff). */
+  osmoticPressureMmHg: D;
+  aluminumMcgPerKgPerDay: D;
+}
+
+// Gas constant in L·mmHg/(mol·K): 8.314462618 J/(mol·K) ÷ 133.322387415 Pa/mmHg × 1000 L/m³ (CODATA 2018; exact SI definitions).
+const R_L_MMHG = new D('8.314462618').div('133.322387415').times(1000);
+const KELVIN = new D('273.15');
+
+/** mmHg per mOsm/L at a temperature (°C), ideal solution: π = c·R·T. At 37 °C ≈ 19.34. */
+export function mmHgPerMOsmPerL(temperatureC: D): D {
+  return R_L_MMHG.times(temperatureC.plus(KELVIN)).div(1000);
+}
+
+function emptySpecies(): Record<SpeciesId, D> {
+  const out = {} as Record<SpeciesId, D>;
+  for (const s of SPECIES_IDS) out[s] = ZERO;
+  return out;
+}
+
+function energySource(role: Role): EnergySource {
+  switch (role) {
+    case 'dextrose': return 'dextrose';
+    case 'amino-acids': return 'aminoAcids';
+    case 'lipid': return 'lipid';
+    default: return 'other';
+  }
+}
+
+function lineKcal(product: Product, volumeMl: D): D {
+  if (product.kcalPerMl) return product.kcalPerMl.times(volumeMl);
+  if (product.nutrient?.kcalPerGram) return product.nutrient.kcalPerGram.times(product.nutrient.gramsPerMl).times(volumeMl);
+  return ZERO;
+}
+
+/** x per litre of the bag (x ÷ V × 1000); zero for an empty bag. */
+export function perLitre(x: D, volumeMl: D): D {
+  return volumeMl.isZero() ? ZERO : x.div(volumeMl).times(THOUSAND);
+}
+
+function percentOf(grams: D, volumeMl: D): D {
+  return volumeMl.isZero() ? ZERO : grams.div(volumeMl).times(100);
+}
+
+function makeLine(line: OrderLine, volumeMl: D, perDay: BagLine['perDay']): BagLine {
+  const product = line.product;
+  const particleMOsm = product.particlePerMl.times(volumeMl);
+  const labelMissing = product.mOsmPerMl === null && product.role !== 'water';
+  return {
+    line, product, volumeMl, perDay, particleMOsm,
+    labelMOsm: product.mOsmPerMl ? product.mOsmPerMl.times(volumeMl) : particleMOsm,
+    labelMissing,
+    kcal: lineKcal(product, volumeMl),
+    aluminumMcg: product.aluminumMcgPerL ? product.aluminumMcgPerL.times(volumeMl).div(THOUSAND) : ZERO,
+  };
+}
+
+/**
+ * Turn a validated order into its bag: each line's stock volume, the fill, every species, both
+ * osmolarities, concentrations, energy, nitrogen, GIR. Pure; full decimal precision.
+ */
+export function computeBag(order: Order, policy: Policy): Bag {
+  const weight = order.patient.weightKg;
+  const amountLines: BagLine[] = [];
+  let fillLine: OrderLine | null = null;
+  for (const line of order.lines) {
+    if (line.kind === 'fill') { fillLine = line; continue; }
+    amountLines.push(makeLine(line, lineVolumeMl(line, weight), perDayAmount(line, weight)));
+  }
+  const addedVolumeMl = sum(amountLines.map((l) => l.volumeMl));
+  let finalVolumeMl = addedVolumeMl;
+  const lines = [...amountLines];
+  if (fillLine && order.volumeMl) {
+    const fillVolume = D.max(order.volumeMl.minus(addedVolumeMl), ZERO);
+    lines.push(makeLine(fillLine, fillVolume, null));
+    finalVolumeMl = D.max(order.volumeMl, addedVolumeMl);
+  }
+  lines.sort((a, b) => a.line.index - b.line.index);
+
+  const speciesMmol = emptySpecies();
+  const grams = { dextrose: ZERO, aminoAcids: ZERO, lipid: ZERO };
+  const kcal = { dextrose: ZERO, aminoAcids: ZERO, lipid: ZERO, other: ZERO };
+  let particle = ZERO;
+  let label = ZERO;
+  let aluminum = ZERO;
+  for (const l of lines) {
+    for (const s of Object.keys(l.product.perMl) as SpeciesId[]) {
+      const perMl = l.product.perMl[s];
+      if (perMl) speciesMmol[s] = speciesMmol[s].plus(perMl.times(l.volumeMl));
+    }
+    const n = l.product.nutrient;
+    if (n) {
+      const g = n.gramsPerMl.times(l.volumeMl);
+      if (l.product.role === 'dextrose') grams.dextrose = grams.dextrose.plus(g);
+      else if (l.product.role === 'amino-acids') grams.aminoAcids = grams.aminoAcids.plus(g);
+      else if (l.product.role === 'lipid') grams.lipid = grams.lipid.plus(g);
+    }
+    const src = energySource(l.product.role);
+    kcal[src] = kcal[src].plus(l.kcal);
+    particle = particle.plus(l.particleMOsm);
+    label = label.plus(l.labelMOsm);
+    aluminum = aluminum.plus(l.aluminumMcg);
+  }
+  const particleOsm = perLitre(particle, finalVolumeMl);
+  const labelOsm = perLitre(label, finalVolumeMl);
+  const method: Osmolarity['method'] =
+    policy.reportedOsmolarity === 'higher' ? (labelOsm.gt(particleOsm) ? 'labelSum' : 'particle') : policy.reportedOsmolarity;
+  const reported = method === 'particle' ? particleOsm : labelOsm;
+  const nitrogenG = grams.aminoAcids.div(policy.reference.gramsAminoAcidPerGramNitrogen.value);
+  const nonProtein = kcal.dextrose.plus(kcal.lipid);
+  const minutes = order.hours.times(60);
+  return {
+    order, lines, finalVolumeMl, addedVolumeMl,
+    hours: order.hours,
+    rateMlPerHour: finalVolumeMl.div(order.hours),
+    speciesMmol, grams,
+    percent: {
+      dextrose: percentOf(grams.dextrose, finalVolumeMl),
+      aminoAcids: percentOf(grams.aminoAcids, finalVolumeMl),
+      lipid: percentOf(grams.lipid, finalVolumeMl),
+    },
+    kcal: { ...kcal, total: sum(Object.values(kcal)), nonProtein },
+    nitrogenG,
+    npcToN: nitrogenG.isZero() ? null : nonProtein.div(nitrogenG),
+    girMgPerKgPerMin: grams.dextrose.times(THOUSAND).div(weight.times(minutes)),
+    osmolarity: { particle: particleOsm, labelSum: labelOsm, reported, method },
+    osmoticPressureMmHg: reported.times(mmHgPerMOsmPerL(policy.reference.osmoticPressureTemperatureC.value)),
+    aluminumMcgPerKgPerDay: aluminum.div(weight),
+  };
+}
+
+/** A line's share of the bag's osmolarity under the reported method, as a fraction 0–1. */
+export function lineShare(bag: Bag, line: BagLine): D {
+  const total = bag.osmolarity.method === 'particle' ? sum(bag.lines.map((l) => l.particleMOsm)) : sum(bag.lines.map((l) => l.labelMOsm));
+  const own = bag.osmolarity.method === 'particle' ? line.particleMOsm : line.labelMOsm;
+  return total.isZero() ? ZERO : own.div(total);
+}

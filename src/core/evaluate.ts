@@ -1,0 +1,32 @@
+import { computeBag, type Bag } from './compute/bag.ts';
+import { CHECKS } from './checks/index.ts';
+import { verdictOf, type Finding, type Verdict } from './findings.ts';
+import { parseOrder, type Order } from './order.ts';
+import { toReport, type Report } from './report.ts';
+import type { Catalog } from './catalog.ts';
+import type { Policy } from './policy.ts';
+import type { Result } from './problems.ts';
+
+/** Everything the engine knows about one bag. */
+export interface Evaluation {
+  order: Order;
+  bag: Bag;
+  findings: Finding[];
+  verdict: Verdict;
+  report: Report;
+}
+
+/** Compute a validated order's bag, run every check, and build its report. */
+export function evaluateOrder(order: Order, catalog: Catalog, policy: Policy): Evaluation {
+  const bag = computeBag(order, policy);
+  const findings = CHECKS.flatMap((check) => check(bag, policy));
+  const verdict = verdictOf(findings);
+  return { order, bag, findings, verdict, report: toReport(bag, findings, verdict, catalog, policy) };
+}
+
+/** Validate an order file against the catalog, then evaluate it; invalid input returns its problems. */
+export function checkOrder(input: unknown, catalog: Catalog, policy: Policy): Result<Evaluation> {
+  const order = parseOrder(input, catalog);
+  if (!order.ok) return order;
+  return { ok: true, value: evaluateOrder(order.value, catalog, policy) };
+}

@@ -1,0 +1,193 @@
+import { z } from 'zod';
+import { D, ZERO, round } from './decimal.ts';
+import { SPECIES, SPECIES_IDS, isCharged, type SpeciesId } from './species.ts';
+import { lineShare, perLitre, mmHgPerMOsmPerL, type Bag } from './compute/bag.ts';
+import { ruleFor, SEVERITIES, type Policy } from './policy.ts';
+import type { Catalog } from './catalog.ts';
+import type { Finding, Verdict } from './findings.ts';
+import { AGE_GROUPS, ROUTES } from './order.ts';
+import { as, mmolToMEq } from './units.ts';
+
+const num = z.number().refine(Number.isFinite, 'must be a finite number');
+const speciesRecord = z.record(z.enum(SPECIES_IDS), num);
+const amountUnit = z.object({ amount: num, unit: z.string() });
+
+/** The report v1 (what the engine returns; `osmocount check --json` prints it). */
+export const reportSchema = z.object({
+  format: z.literal('osmocount-report'),
+  version: z.literal(1),
+  order: z.string(),
+  patient: z.object({ id: z.string(), name: z.string().nullable(), location: z.string().nullable(), weightKg: num, ageGroup: z.enum(AGE_GROUPS) }),
+  route: z.enum(ROUTES),
+  catalog: z.string(),
+  policy: z.string(),
+  volumeMl: num,
+  hours: num,
+  rateMlPerHour: num,
+  lines: z.array(z.object({
+    index: z.number().int(),
+    product: z.string(),
+    name: z.string(),
+    role: z.string(),
+    strength: z.string().nullable(),
+    fill: z.boolean(),
+    amount: num.nullable(),
+    unit: z.string().nullable(),
+    species: z.string().nullable(),
+    perDay: amountUnit.nullable(),
+    perKgPerDay: amountUnit.nullable(),
+    volumeMl: num,
+    mOsm: num,
+    particleMOsm: num,
+    labelMOsm: num,
+    sharePercent: num,
+    kcal: num,
+  })),
+  osmolarity: z.object({
+    particle: num, labelSum: num, reported: num,
+    method: z.enum(['particle', 'labelSum']),
+    spread: num,
+    peripheralLimit: num.nullable(),
+  }),
+  totals: z.object({
+    mmolPerL: speciesRecord,
+    mEqPerL: speciesRecord,
+    mmolPerDay: speciesRecord,
+    mmolPerKgPerDay: speciesRecord,
+    dextrosePercent: num, aminoAcidPercent: num, lipidPercent: num,
+    grams: z.object({ dextrose: num, aminoAcids: num, lipid: num }),
+    gramsPerKg: z.object({ dextrose: num, aminoAcids: num, lipid: num }),
+    kcal: z.object({ dextrose: num, aminoAcids: num, lipid: num, other: num, total: num, nonProtein: num }),
+    kcalPerKg: num,
+    nitrogenG: num,
+    npcToN: num.nullable(),
+    girMgPerKgPerMin: num,
+    fluidMlPerKg: num,
+    aluminumMcgPerKgPerDay: num,
+  }),
+  information: z.object({
+    osmoticPressureMmHg: num,
+    mmHgPerMOsmPerL: num,
+    temperatureC: num,
+    plasmaOsmolality: z.object({ min: num, max: num, unit: z.string(), source: z.string() }),
+    timesPlasma: z.object({ low: num, high: num }),
+  }),
+  findings: z.array(z.object({
+    code: z.string(),
+    severity: z.enum(SEVERITIES),
+    value: num.nullable(),
+    limit: num.nullable(),
+    unit: z.string().nullable(),
+    message: z.string(),
+    source: z.string(),
+    nutrient: z.string().optional(),
+    lines: z.array(z.number().int()),
+    fields: z.array(z.string()),
+  })),
+  verdict: z.enum(['pass', 'warn', 'block']),
+});
+export type Report = z.infer<typeof reportSchema>;
+
+function speciesMap(f: (s: SpeciesId) => D, places: number): Record<SpeciesId, number> {
+  const out = {} as Record<SpeciesId, number>;
+  for (const s of SPECIES_IDS) out[s] = round(f(s), places);
+  return out;
+}
+
+/** Round the bag and its findings into the report, once, at this edge. */
+export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalog: Catalog, policy: Policy): Report {
+  const o = bag.order;
+  const w = o.patient.weightKg;
+  const V = bag.finalVolumeMl;
+  const limit = ruleFor(policy, 'osmolarity-peripheral', o.patient.ageGroup)?.max ?? null;
+  const plasma = policy.reference.plasmaOsmolality;
+  const temp = policy.reference.osmoticPressureTemperatureC.value;
+  const reported = bag.osmolarity.reported;
+  return {
+    format: 'osmocount-report',
+    version: 1,
+    order: o.id,
+    patient: { id: o.patient.id, name: o.patient.name, location: o.patient.location, weightKg: round(w, 3), ageGroup: o.patient.ageGroup },
+    route: o.route,
+    catalog: catalog.id,
+    policy: policy.id,
+    volumeMl: round(V, 2),
+    hours: round(bag.hours, 2),
+    rateMlPerHour: round(bag.rateMlPerHour, 2),
+    lines: bag.lines.map((l) => {
+      const line = l.line;
+      const method = bag.osmolarity.method;
+      return {
+        index: line.index,
+        product: l.product.id,
+        name: l.product.name,
+        role: l.product.role,
+        strength: l.product.strength,
+        fill: line.kind === 'fill',
+        amount: line.kind === 'amount' ? round(line.amount, 4) : null,
+        unit: line.kind === 'amount' ? line.unit : null,
+        species: line.kind === 'amount' ? line.species : null,
+        perDay: l.perDay ? { amount: round(l.perDay.amount, 4), unit: l.perDay.unit } : null,
+        perKgPerDay: l.perDay ? { amount: round(l.perDay.amount.div(w), 4), unit: `${l.perDay.unit}/kg` } : null,
+        volumeMl: round(l.volumeMl, 2),
+        mOsm: round(method === 'particle' ? l.particleMOsm : l.labelMOsm, 2),
+        particleMOsm: round(l.particleMOsm, 2),
+        labelMOsm: round(l.labelMOsm, 2),
+        sharePercent: round(lineShare(bag, l).times(100), 1),
+        kcal: round(l.kcal, 1),
+      };
+    }),
+    osmolarity: {
+      particle: round(bag.osmolarity.particle, 1),
+      labelSum: round(bag.osmolarity.labelSum, 1),
+      reported: round(reported, 1),
+      method: bag.osmolarity.method,
+      spread: round(bag.osmolarity.labelSum.minus(bag.osmolarity.particle), 1),
+      peripheralLimit: limit ? round(limit, 1) : null,
+    },
+    totals: {
+      mmolPerL: speciesMap((s) => perLitre(bag.speciesMmol[s], V), 2),
+      mEqPerL: speciesMap((s) => (isCharged(s) ? mmolToMEq(s, as(perLitre(bag.speciesMmol[s], V), 'mmol')) : ZERO), 2),
+      mmolPerDay: speciesMap((s) => bag.speciesMmol[s], 2),
+      mmolPerKgPerDay: speciesMap((s) => bag.speciesMmol[s].div(w), 3),
+      dextrosePercent: round(bag.percent.dextrose, 2),
+      aminoAcidPercent: round(bag.percent.aminoAcids, 2),
+      lipidPercent: round(bag.percent.lipid, 2),
+      grams: { dextrose: round(bag.grams.dextrose, 2), aminoAcids: round(bag.grams.aminoAcids, 2), lipid: round(bag.grams.lipid, 2) },
+      gramsPerKg: { dextrose: round(bag.grams.dextrose.div(w), 3), aminoAcids: round(bag.grams.aminoAcids.div(w), 3), lipid: round(bag.grams.lipid.div(w), 3) },
+      kcal: {
+        dextrose: round(bag.kcal.dextrose, 1), aminoAcids: round(bag.kcal.aminoAcids, 1), lipid: round(bag.kcal.lipid, 1),
+        other: round(bag.kcal.other, 1), total: round(bag.kcal.total, 1), nonProtein: round(bag.kcal.nonProtein, 1),
+      },
+      kcalPerKg: round(bag.kcal.total.div(w), 1),
+      nitrogenG: round(bag.nitrogenG, 2),
+      npcToN: bag.npcToN ? round(bag.npcToN, 0) : null,
+      girMgPerKgPerMin: round(bag.girMgPerKgPerMin, 2),
+      fluidMlPerKg: round(V.div(w), 1),
+      aluminumMcgPerKgPerDay: round(bag.aluminumMcgPerKgPerDay, 2),
+    },
+    information: {
+      osmoticPressureMmHg: round(bag.osmoticPressureMmHg, 0),
+      mmHgPerMOsmPerL: round(mmHgPerMOsmPerL(temp), 2),
+      temperatureC: round(temp, 1),
+      plasmaOsmolality: { min: round(plasma.min, 0), max: round(plasma.max, 0), unit: plasma.unit, source: plasma.source },
+      timesPlasma: { low: round(reported.div(plasma.max), 2), high: round(reported.div(plasma.min), 2) },
+    },
+    findings: findings.map((f) => {
+      const out: Report['findings'][number] = {
+        code: f.code, severity: f.severity,
+        value: f.value ? round(f.value, f.decimals) : null,
+        limit: f.limit ? round(f.limit, f.decimals) : null,
+        unit: f.unit, message: f.message, source: f.source, lines: f.lines, fields: f.fields,
+      };
+      if (f.nutrient !== undefined) out.nutrient = f.nutrient;
+      return out;
+    }),
+    verdict,
+  };
+}
+
+/** Display label of a species for tables. */
+export function speciesLabel(s: SpeciesId): string {
+  return SPECIES[s].label;
+}

@@ -1,0 +1,65 @@
+import { z } from 'zod';
+import { D, toDecimal } from './decimal.ts';
+import { formatPath, type Problem, type Result } from './problems.ts';
+
+type Bound = { min?: number; gt?: number };
+
+function describe(b: Bound): string {
+  if (b.gt !== undefined) return `must be a number > ${b.gt}`;
+  if (b.min !== undefined) return `must be a number ≥ ${b.min}`;
+  return 'must be a number';
+}
+
+/**
+ * A JSON number or decimal string, read straight into a decimal (never through float arithmetic).
+ * One clear message when it is missing, not a number, or out of range.
+ */
+export function decimal(bound: Bound = {}) {
+  const message = describe(bound);
+  return z.unknown().transform((value, ctx): D => {
+    const d = toDecimal(value);
+    if (d === null || (bound.gt !== undefined && d.lte(bound.gt)) || (bound.min !== undefined && d.lt(bound.min))) {
+      ctx.addIssue({ code: 'custom', message: value === undefined ? `is required (${message})` : message });
+      return z.NEVER;
+    }
+    return d;
+  });
+}
+
+/** Optional variant: absent stays absent. */
+export function optionalDecimal(bound: Bound = {}) {
+  return decimal(bound).optional();
+}
+
+export const idPattern = /^[a-z0-9]+(-[a-z0-9]+)*$/;
+
+/** zod issues → `path: message` problems (zod already reports every issue, not just the first). */
+export function zodProblems(error: z.ZodError, prefix: readonly PropertyKey[] = []): Problem[] {
+  return error.issues.map((issue) => ({
+    path: formatPath([...prefix, ...issue.path]),
+    message: friendlyMessage(issue),
+  }));
+}
+
+function friendlyMessage(issue: z.core.$ZodIssue): string {
+  switch (issue.code) {
+    case 'invalid_type':
+      return issue.input === undefined ? `is required (${issue.expected})` : `must be ${article(issue.expected)}`;
+    case 'invalid_value':
+      return `must be one of ${issue.values.map((v) => JSON.stringify(v)).join(', ')}`;
+    case 'unrecognized_keys':
+      return `unknown field${issue.keys.length > 1 ? 's' : ''} ${issue.keys.join(', ')}`;
+    default:
+      return issue.message;
+  }
+}
+
+function article(expected: string): string {
+  return /^[aeiou]/.test(expected) ? `an ${expected}` : `a ${expected}`;
+}
+
+/** Run a schema and return its typed output or every problem as data; never throws on input. */
+export function parseWith<S extends z.ZodType>(schema: S, input: unknown): Result<z.output<S>> {
+  const parsed = schema.safeParse(input);
+  return parsed.success ? { ok: true, value: parsed.data } : { ok: false, problems: zodProblems(parsed.error) };
+}

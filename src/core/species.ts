@@ -1,0 +1,53 @@
+import { D } from './decimal.ts';
+
+/** The dissolved particles that stocks deliver, each counted once (exchange format v1). */
+export const SPECIES_IDS = [
+  'Na', 'K', 'Ca', 'Mg', 'Cl', 'acetate', 'gluconate', 'lactate', 'sulfate',
+  'phosphate', 'glycerophosphate', 'glycerol',
+] as const;
+export type SpeciesId = (typeof SPECIES_IDS)[number];
+
+/** One row of the species table. */
+export interface SpeciesInfo {
+  id: SpeciesId;
+  label: string;
+  /** Ionic charge; null where mEq is not defined (phosphate species: charge depends on pH). */
+  charge: number | null;
+  /** Formula of the particle whose molar mass is given (checked against a reference library in the tests). */
+  formula: string;
+  /** g/mol of that formula; for the phosphate species it is the mass of phosphorus (mmol of P). */
+  molarMass: D;
+  molarMassSource: string;
+}
+
+const IUPAC = 'IUPAC 2021 standard atomic weights (abridged), summed by formula';
+
+export const SPECIES: Readonly<Record<SpeciesId, SpeciesInfo>> = {
+  Na: { id: 'Na', label: 'sodium', charge: 1, formula: 'Na', molarMass: new D('22.990'), molarMassSource: IUPAC },
+  K: { id: 'K', label: 'potassium', charge: 1, formula: 'K', molarMass: new D('39.098'), molarMassSource: IUPAC },
+  Ca: { id: 'Ca', label: 'calcium', charge: 2, formula: 'Ca', molarMass: new D('40.078'), molarMassSource: IUPAC },
+  Mg: { id: 'Mg', label: 'magnesium', charge: 2, formula: 'Mg', molarMass: new D('24.305'), molarMassSource: IUPAC },
+  Cl: { id: 'Cl', label: 'chloride', charge: -1, formula: 'Cl', molarMass: new D('35.45'), molarMassSource: IUPAC },
+  acetate: { id: 'acetate', label: 'acetate', charge: -1, formula: 'C2H3O2', molarMass: new D('59.044'), molarMassSource: IUPAC },
+  gluconate: { id: 'gluconate', label: 'gluconate', charge: -1, formula: 'C6H11O7', molarMass: new D('195.15'), molarMassSource: IUPAC },
+  lactate: { id: 'lactate', label: 'lactate', charge: -1, formula: 'C3H5O3', molarMass: new D('89.07'), molarMassSource: IUPAC },
+  sulfate: { id: 'sulfate', label: 'sulfate', charge: -2, formula: 'SO4', molarMass: new D('96.06'), molarMassSource: IUPAC },
+  phosphate: { id: 'phosphate', label: 'phosphate (inorganic)', charge: null, formula: 'P', molarMass: new D('30.974'), molarMassSource: `${IUPAC}; counted as mmol of phosphorus` },
+  glycerophosphate: { id: 'glycerophosphate', label: 'glycerophosphate (organic phosphate)', charge: null, formula: 'P', molarMass: new D('30.974'), molarMassSource: `${IUPAC}; counted as mmol of phosphorus` },
+  glycerol: { id: 'glycerol', label: 'glycerol', charge: 0, formula: 'C3H8O3', molarMass: new D('92.094'), molarMassSource: IUPAC },
+};
+
+export function isSpeciesId(value: string): value is SpeciesId {
+  return (SPECIES_IDS as readonly string[]).includes(value);
+}
+
+/** True for the two phosphate species, which are ordered and labelled in mmol only. */
+export function isPhosphateSpecies(id: SpeciesId): boolean {
+  return id === 'phosphate' || id === 'glycerophosphate';
+}
+
+/** True for the ions that have a charge (mEq is defined for them). */
+export function isCharged(id: SpeciesId): boolean {
+  const c = SPECIES[id].charge;
+  return c !== null && c !== 0;
+}
