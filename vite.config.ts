@@ -21,7 +21,7 @@ export default defineConfig(({ mode }) =>
         plugins: [react()],
         build: { outDir: 'dist/app', emptyOutDir: true, chunkSizeWarningLimit: 1500 },
         test: {
-          environment: 'jsdom',
+          environment: 'node',
           setupFiles: ['./src/test-setup.ts'],
           include: ['src/**/*.test.{ts,tsx}', 'test/**/*.test.{ts,tsx}'],
         },

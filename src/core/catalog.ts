@@ -11,7 +11,8 @@ export const NUTRIENT_ROLES: readonly Role[] = ['dextrose', 'amino-acids', 'lipi
 
 const speciesEnum = z.enum(SPECIES_IDS);
 
-const perMlSchema = z.record(z.string(), decimal({ min: 0 }));
+// Upper bounds are physical (no stock holds more than 100 mmol of a species or 1.5 g of nutrient per mL).
+const perMlSchema = z.record(z.string(), decimal({ min: 0, max: 100 }));
 
 const saltSchema = z.strictObject({
   name: z.string().min(1),
@@ -27,14 +28,14 @@ const productSchema = z.object({
   role: z.enum(ROLES),
   perMl: perMlSchema.optional(),
   nutrient: z.strictObject({
-    gramsPerMl: decimal({ gt: 0 }),
-    mOsmPerGram: decimal({ min: 0 }),
+    gramsPerMl: decimal({ gt: 0, max: 1.5 }),
+    mOsmPerGram: decimal({ min: 0, max: 100 }),
     basis: z.enum(['hydrous', 'anhydrous']).optional(),
-    kcalPerGram: optionalDecimal({ min: 0 }),
+    kcalPerGram: optionalDecimal({ min: 0, max: 20 }),
   }).optional(),
-  mOsmPerMl: optionalDecimal({ min: 0 }),
-  kcalPerMl: optionalDecimal({ min: 0 }),
-  aluminumMcgPerL: optionalDecimal({ min: 0 }),
+  mOsmPerMl: optionalDecimal({ min: 0, max: 100 }),
+  kcalPerMl: optionalDecimal({ min: 0, max: 20 }),
+  aluminumMcgPerL: optionalDecimal({ min: 0, max: 1000000 }),
   orderSpecies: speciesEnum.optional(),
   strength: z.string().optional(),
   salts: z.array(saltSchema).optional(),

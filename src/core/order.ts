@@ -25,9 +25,20 @@ export function isPerKg(unit: LineUnit): boolean {
   return unit.endsWith('/kg');
 }
 
+/**
+ * Plausibility bounds of an order's numbers (common practice: the smallest live-born infants weigh
+ * about 0.25 kg; no PN bag holds 20 L or runs for more than 72 h). They keep every figure finite.
+ */
+export const LIMITS = {
+  weightKg: { min: 0.1, max: 700 },
+  volumeMl: { gt: 0, max: 20000 },
+  hours: { min: 1, max: 72 },
+  amount: { min: 0, max: 100000 },
+} as const;
+
 const lineSchema = z.object({
   product: z.string().min(1, 'must name a catalog product'),
-  amount: optionalDecimal({ min: 0 }),
+  amount: optionalDecimal(LIMITS.amount),
   unit: z.enum(LINE_UNITS).optional(),
   species: z.string().optional(),
   fill: z.boolean().optional(),
@@ -62,12 +73,12 @@ export const orderFileSchema = z.object({
     id: z.string().trim().min(1, 'must not be empty'),
     name: z.string().optional(),
     location: z.string().optional(),
-    weightKg: decimal({ gt: 0 }),
+    weightKg: decimal(LIMITS.weightKg),
     ageGroup: z.enum(AGE_GROUPS),
   }),
   route: z.enum(ROUTES),
-  volumeMl: optionalDecimal({ gt: 0 }),
-  hours: optionalDecimal({ gt: 0 }),
+  volumeMl: optionalDecimal(LIMITS.volumeMl),
+  hours: optionalDecimal(LIMITS.hours),
   lines: z.array(lineSchema),
   ions: ionsSchema.optional(),
   note: z.string().optional(),

@@ -2,11 +2,13 @@ import { z } from 'zod';
 import { D, toDecimal } from './decimal.ts';
 import { formatPath, type Problem, type Result } from './problems.ts';
 
-type Bound = { min?: number; gt?: number };
+type Bound = { min?: number; gt?: number; max?: number };
 
 function describe(b: Bound): string {
-  if (b.gt !== undefined) return `must be a number > ${b.gt}`;
-  if (b.min !== undefined) return `must be a number ≥ ${b.min}`;
+  const low = b.gt !== undefined ? `> ${b.gt}` : b.min !== undefined ? `≥ ${b.min}` : null;
+  if (low && b.max !== undefined) return `must be a number ${low} and ≤ ${b.max}`;
+  if (low) return `must be a number ${low}`;
+  if (b.max !== undefined) return `must be a number ≤ ${b.max}`;
   return 'must be a number';
 }
 
@@ -18,7 +20,7 @@ export function decimal(bound: Bound = {}) {
   const message = describe(bound);
   return z.unknown().transform((value, ctx): D => {
     const d = toDecimal(value);
-    if (d === null || (bound.gt !== undefined && d.lte(bound.gt)) || (bound.min !== undefined && d.lt(bound.min))) {
+    if (d === null || (bound.gt !== undefined && d.lte(bound.gt)) || (bound.min !== undefined && d.lt(bound.min)) || (bound.max !== undefined && d.gt(bound.max))) {
       ctx.addIssue({ code: 'custom', message: value === undefined ? `is required (${message})` : message });
       return z.NEVER;
     }
@@ -45,8 +47,10 @@ function friendlyMessage(issue: z.core.$ZodIssue): string {
   switch (issue.code) {
     case 'invalid_type':
       return issue.input === undefined ? `is required (${issue.expected})` : `must be ${article(issue.expected)}`;
-    case 'invalid_value':
-      return `must be one of ${issue.values.map((v) => JSON.stringify(v)).join(', ')}`;
+    case 'invalid_value': {
+      const choices = issue.values.map((v) => JSON.stringify(v)).join(', ');
+      return issue.input === undefined ? `is required (one of ${choices})` : `must be one of ${choices}`;
+    }
     case 'unrecognized_keys':
       return `unknown field${issue.keys.length > 1 ? 's' : ''} ${issue.keys.join(', ')}`;
     default:
@@ -60,6 +64,6 @@ function article(expected: string): string {
 
 /** Run a schema and return its typed output or every problem as data; never throws on input. */
 export function parseWith<S extends z.ZodType>(schema: S, input: unknown): Result<z.output<S>> {
-  const parsed = schema.safeParse(input);
+  const parsed = schema.safeParse(input, { reportInput: true });
   return parsed.success ? { ok: true, value: parsed.data } : { ok: false, problems: zodProblems(parsed.error) };
 }

@@ -1,0 +1,103 @@
+import { describe, expect, test } from 'vitest';
+import { parseOrder } from './order.ts';
+import { DEFAULT_CATALOG } from '../defaults.ts';
+
+const base = {
+  id: 'O-1',
+  patient: { id: 'P-1', weightKg: 70, ageGroup: 'adult' },
+  route: 'central',
+  volumeMl: 1000,
+  lines: [{ product: 'dextrose-70', amount: 100, unit: 'g' }, { product: 'sterile-water', fill: true }],
+};
+
+function problems(order: unknown): string[] {
+  const r = parseOrder(order, DEFAULT_CATALOG);
+  if (r.ok) return [];
+  return r.problems.map((p) => `${p.path}: ${p.message}`);
+}
+
+describe('parseOrder', () => {
+  test('a valid order parses', () => {
+    expect(problems(base)).toEqual([]);
+  });
+
+  test('missing fields are listed with their paths', () => {
+    const out = problems({ lines: [] });
+    expect(out).toEqual(expect.arrayContaining([
+      expect.stringMatching(/^id: is required/),
+      expect.stringMatching(/^patient: is required/),
+      expect.stringMatching(/^route: is required \(one of "peripheral", "central"\)/),
+    ]));
+  });
+
+  test('a negative amount names its line', () => {
+    expect(problems({ ...base, lines: [{ product: 'dextrose-70', amount: -5, unit: 'g' }] })).toEqual(['lines[0].amount: must be a number ≥ 0 and ≤ 100000']);
+  });
+
+  test('an unknown product is an error, not a zero', () => {
+    expect(problems({ ...base, lines: [{ product: 'dextrose-99', amount: 5, unit: 'g' }, { product: 'sterile-water', fill: true }] }))
+      .toEqual(['lines[0].product: unknown product "dextrose-99" (not in the catalog)']);
+  });
+
+  test('an unknown species is an error', () => {
+    expect(problems({ ...base, lines: [{ product: 'sodium-chloride-4', amount: 5, unit: 'mEq', species: 'Xx' }] }))
+      .toEqual(['lines[0].species: unknown species "Xx"']);
+  });
+
+  test('mEq of phosphate is refused: phosphate is ordered in mmol', () => {
+    const out = problems({ ...base, lines: [{ product: 'potassium-phosphates-3', amount: 15, unit: 'mEq', species: 'phosphate' }] });
+    expect(out).toEqual(['lines[0].unit: phosphate is ordered in mmol, never mEq (its charge depends on pH)']);
+  });
+
+  test('mEq on a phosphate stock counts its cation by default, which is allowed', () => {
+    expect(problems({ ...base, lines: [{ product: 'sodium-phosphates-3', amount: 12, unit: 'mmol' }, { product: 'sterile-water', fill: true }] })).toEqual([]);
+  });
+
+  test('two fill lines are refused', () => {
+    const out = problems({ ...base, lines: [{ product: 'sterile-water', fill: true }, { product: 'sterile-water', fill: true }] });
+    expect(out).toEqual(['lines[1].fill: only one line may fill the bag (line 0 already does)']);
+  });
+
+  test('a fill line needs a final volume', () => {
+    const { volumeMl: _v, ...noVolume } = base;
+    expect(problems(noVolume)).toEqual(['volumeMl: is required when a line fills the bag']);
+  });
+
+  test('weight 0 is refused', () => {
+    expect(problems({ ...base, patient: { ...base.patient, weightKg: 0 } })).toEqual(['patient.weightKg: must be a number ≥ 0.1 and ≤ 700']);
+  });
+
+  test('strings that are not numbers are refused; decimal strings are read exactly', () => {
+    expect(problems({ ...base, volumeMl: 'a lot' })).toEqual(['volumeMl: must be a number > 0 and ≤ 20000']);
+    expect(problems({ ...base, patient: { ...base.patient, weightKg: '7e2' } })).toEqual([]);
+    expect(problems({ ...base, volumeMl: 'NaN' })).toEqual(['volumeMl: must be a number > 0 and ≤ 20000']);
+    expect(problems({ ...base, volumeMl: '1000.50' })).toEqual([]);
+  });
+
+  test('grams on an electrolyte stock is refused', () => {
+    expect(problems({ ...base, lines: [{ product: 'calcium-gluconate-10', amount: 1, unit: 'g' }, { product: 'sterile-water', fill: true }] })[0])
+      .toMatch(/^lines\[0\]\.unit: "g" counts grams of nutrient/);
+  });
+
+  test('an amount line needs its amount and unit', () => {
+    expect(problems({ ...base, lines: [{ product: 'dextrose-70' }, { product: 'sterile-water', fill: true }] })).toEqual([
+      'lines[0].amount: is required (a number ≥ 0) unless the line is the fill',
+      'lines[0].unit: is required unless the line is the fill (one of mL, g, mEq, mmol, mL/kg, g/kg, mEq/kg, mmol/kg)',
+    ]);
+  });
+
+  test('a bad unit and a bad age group are named', () => {
+    const out = problems({ ...base, patient: { ...base.patient, ageGroup: 'infant' }, lines: [{ product: 'dextrose-70', amount: 1, unit: 'kg' }] });
+    expect(out).toEqual(expect.arrayContaining([
+      expect.stringMatching(/^patient\.ageGroup: must be one of "adult", "child"/),
+      expect.stringMatching(/^lines\[0\]\.unit: must be one of "mL"/),
+    ]));
+  });
+
+  test('never throws on arbitrary input', () => {
+    for (const input of [null, 42, 'order', [], { lines: null }, { lines: [null] }, { patient: [] }]) {
+      expect(() => parseOrder(input, DEFAULT_CATALOG)).not.toThrow();
+      expect(parseOrder(input, DEFAULT_CATALOG).ok).toBe(false);
+    }
+  });
+});
