@@ -15,7 +15,7 @@ describe('parseCatalog', () => {
   });
 
   test('a negative composition is named with its path', () => {
-    expect(problems({ ...good, products: [{ ...good.products[0], perMl: { Na: -4, Cl: 4 } }] })).toEqual(['products[0].perMl.Na: must be a number ≥ 0']);
+    expect(problems({ ...good, products: [{ ...good.products[0], perMl: { Na: -4, Cl: 4 } }] })).toEqual(['products[0].perMl.Na: must be a number ≥ 0 and ≤ 100']);
   });
 
   test('an unknown species is an error, not a zero', () => {

@@ -16,7 +16,7 @@ function lineFor(p: Product) {
   const units: string[] = ['mL'];
   if (p.nutrient) units.push('g');
   if (p.orderSpecies) units.push('mmol');
-  return fc.record({ unit: fc.constantFrom(...units), amount: decimalText(0, 400, 3) }).map((l) => ({ product: p.id, ...l }));
+  return fc.record({ unit: fc.constantFrom(...units), amount: decimalText(0, 300, 3) }).map((l) => ({ product: p.id, ...l }));
 }
 
 const lineArb = fc.constantFrom(...products).chain(lineFor);
@@ -52,7 +52,7 @@ const close = (a: D, b: D) => a.minus(b).abs().lte(new D('1e-20').times(D.max(a.
 
 describe('engine laws', () => {
   test('scaling every amount and the volume by k leaves osmolarity unchanged', () => {
-    fc.assert(fc.property(orderArb, decimalText(0.1, 20, 2), (order, k) => {
+    fc.assert(fc.property(orderArb, decimalText(0.1, 5, 2), (order, k) => {
       fc.pre(!new D(k).isZero());
       const a = evaluate(order).bag;
       const b = evaluate(scale(order, k)).bag;
