@@ -1,7 +1,10 @@
 import Decimal from 'decimal.js';
 
-/** The engine's one decimal configuration: 40 significant digits, half-even at the display edge. */
-export const D = Decimal.clone({ precision: 40, rounding: Decimal.ROUND_HALF_EVEN });
+/**
+ * The engine's one decimal configuration: 28 significant digits (a dose of 10⁵ units is still exact to
+ * 10⁻²² of a unit), half-even at the display edge.
+ */
+export const D = Decimal.clone({ precision: 28, rounding: Decimal.ROUND_HALF_EVEN });
 export type D = InstanceType<typeof D>;
 
 export const ZERO = new D(0);

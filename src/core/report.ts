@@ -47,6 +47,8 @@ export const reportSchema = z.object({
     particle: num, labelSum: num, reported: num,
     method: z.enum(['particle', 'labelSum']),
     spread: num,
+    /** mOsm in the whole bag under the reported method. */
+    totalMOsm: num,
     peripheralLimit: num.nullable(),
   }),
   totals: z.object({
@@ -143,6 +145,7 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
       reported: round(reported, 1),
       method: bag.osmolarity.method,
       spread: round(bag.osmolarity.labelSum.minus(bag.osmolarity.particle), 1),
+      totalMOsm: round(bag.osmolarity.method === 'particle' ? bag.totalMOsm.particle : bag.totalMOsm.labelSum, 1),
       peripheralLimit: limit ? round(limit, 1) : null,
     },
     totals: {

@@ -52,6 +52,8 @@ export interface Bag {
   /** Glucose infusion rate, mg/kg/min over the infusion hours. */
   girMgPerKgPerMin: D;
   osmolarity: Osmolarity;
+  /** mOsm in the whole bag by each method. */
+  totalMOsm: { particle: D; labelSum: D };
   /** Ideal osmotic pressure at the policy's temperature, mmHg (van 't Hoff). */
   osmoticPressureMmHg: D;
   aluminumMcgPerKgPerDay: D;
@@ -178,14 +180,19 @@ export function computeBag(order: Order, policy: Policy): Bag {
     npcToN: nitrogenG.isZero() ? null : nonProtein.div(nitrogenG),
     girMgPerKgPerMin: grams.dextrose.times(THOUSAND).div(weight.times(minutes)),
     osmolarity: { particle: particleOsm, labelSum: labelOsm, reported, method },
+    totalMOsm: { particle, labelSum: label },
     osmoticPressureMmHg: reported.times(mmHgPerMOsmPerL(policy.reference.osmoticPressureTemperatureC.value)),
     aluminumMcgPerKgPerDay: aluminum.div(weight),
   };
 }
 
-/** A line's share of the bag's osmolarity under the reported method, as a fraction 0–1. */
+/** A line's mOsm under the reported method. */
+export function lineMOsm(bag: Bag, line: BagLine): D {
+  return bag.osmolarity.method === 'particle' ? line.particleMOsm : line.labelMOsm;
+}
+
+/** A line's share of the bag's mOsm under the reported method, as a fraction 0–1. */
 export function lineShare(bag: Bag, line: BagLine): D {
-  const total = bag.osmolarity.method === 'particle' ? sum(bag.lines.map((l) => l.particleMOsm)) : sum(bag.lines.map((l) => l.labelMOsm));
-  const own = bag.osmolarity.method === 'particle' ? line.particleMOsm : line.labelMOsm;
-  return total.isZero() ? ZERO : own.div(total);
+  const total = bag.osmolarity.method === 'particle' ? bag.totalMOsm.particle : bag.totalMOsm.labelSum;
+  return total.isZero() ? ZERO : lineMOsm(bag, line).div(total);
 }
