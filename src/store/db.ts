@@ -93,7 +93,9 @@ export async function write<Names extends StoreNames<OsmoSchema>[], T>(
   } catch (error) {
     abortQuietly(tx);
     await tx.done.catch(() => undefined);
-    return { ok: false, problems: [storageProblem(error, 'save')] };
+    // A request that failed because the browser aborted the transaction reports AbortError; the
+    // transaction's own error names the cause (QuotaExceededError when storage is full).
+    return { ok: false, problems: [storageProblem(tx.error ?? error, 'save')] };
   }
   if (!outcome.ok) {
     abortQuietly(tx);
