@@ -66,6 +66,10 @@ describe('importing orders', () => {
     expect(await snapshot(store)).toEqual(before);
   });
 
+  it('rejects an empty list of orders', async () => {
+    expect(await plan('[]')).toEqual({ valid: [], invalid: [{ where: '', orderId: null, problems: [{ path: '(file)', message: 'holds no orders (an empty list)' }] }] });
+  });
+
   it('reads NDJSON, naming the line of each problem', async () => {
     const text = [JSON.stringify(demo(0)), '{ broken', JSON.stringify(demo(1))].join('\n');
     const p = await plan(text);

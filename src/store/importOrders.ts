@@ -58,6 +58,9 @@ export function planImportWith(text: string, ctx: ImportContext): ImportPlan {
     return { valid: [], invalid: [{ where: '', orderId: null, problems: [{ path: '(file)', message: `is larger than ${MAX_IMPORT_CHARS.toLocaleString('en')} characters; split it` }] }] };
   }
   const found = ordersFromText('', text);
+  if (found.orders.length === 0 && found.problems.length === 0) {
+    return { valid: [], invalid: [{ where: '', orderId: null, problems: [{ path: '(file)', message: 'holds no orders (an empty list)' }] }] };
+  }
   const invalid: ImportRejected[] = found.problems.map((p) => ({ where: p.where, orderId: null, problems: [p.problem] }));
   const valid: ImportItem[] = [];
   const seen = new Map<string, string>();
