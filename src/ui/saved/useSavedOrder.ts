@@ -1,0 +1,173 @@
+// The open order's life in the browser, for the workspace: autosave on every committed edit, restore on
+// load, save as a version, sign off, open a saved order, copy it, and whether the catalog or policy
+// changed since it was checked. Storage errors are shown, never thrown; the edit on screen stays.
+import { useCallback, useEffect, useRef, useState } from 'react';
+import type { Problem, Result } from '../../core/problems.ts';
+import { sameContent } from '../../store/canonical.ts';
+import { changedSince, type RefChange } from '../../store/changes.ts';
+import { copyOrder, getOrder, nextOrderId, saveDraft, saveVersion, signOff, allOrders, type SavedOrder } from '../../store/orders.ts';
+import type { JsonObject, OrderVersion } from '../../store/types.ts';
+import { useSavedWork } from './SavedWorkProvider.tsx';
+
+/** Where the autosave stands: idle before the first edit, then saving, kept, or refused. */
+export type AutosaveState = { kind: 'idle' } | { kind: 'saving' } | { kind: 'kept'; at: string } | { kind: 'failed' };
+
+export interface SavedOrderApi {
+  ready: boolean;
+  /** The saved order the open one belongs to (null: never saved). */
+  saved: SavedOrder | null;
+  latest: OrderVersion | null;
+  /** The file on screen differs from the latest saved version. */
+  unsaved: boolean;
+  autosave: AutosaveState;
+  /** Catalog/policy changes since the latest version was checked. */
+  changes: RefChange[];
+  /** Call with the order file after every committed edit. */
+  edited(file: JsonObject): void;
+  /** Save the file on screen as the next version. */
+  save(file: JsonObject, by: string | null): Promise<Result<OrderVersion>>;
+  /** Save if needed, then sign the latest version. */
+  sign(file: JsonObject, initials: string): Promise<Result<OrderVersion>>;
+  /** Open a saved order: returns its latest file for the workspace to load. */
+  open(orderKey: string): Promise<JsonObject | null>;
+  /** The workspace opened an unsaved order (new, demo, file): detach from any saved one. */
+  detach(file: JsonObject): void;
+  /** A saved order was deleted: if it is the open one, the order on screen becomes unsaved. */
+  forget(orderKey: string): void;
+  /** Copy a saved order to a new one and open it; returns the copy's file. */
+  copy(orderKey: string, newId: string, by: string | null): Promise<Result<JsonObject>>;
+  /** A free id for the next day's copy of an order id. */
+  suggestId(orderId: string): Promise<string>;
+}
+
+/** The open order's saved state and actions; `initials` marks autosaves and versions. */
+export function useSavedOrder(initials: string | null): SavedOrderApi {
+  const work = useSavedWork();
+  const { store, env, restored, report, touch } = work;
+  const [saved, setSaved] = useState<SavedOrder | null>(null);
+  const [current, setCurrent] = useState<JsonObject | null>(restored?.file ?? null);
+  const [autosave, setAutosave] = useState<AutosaveState>({ kind: 'idle' });
+  const [changeState, setChangeState] = useState<{ version: OrderVersion | null; list: RefChange[] }>({ version: null, list: [] });
+  const openKey = useRef<string | null>(restored?.orderKey ?? null);
+  const pending = useRef<JsonObject | null>(null);
+  const running = useRef(false);
+  const latest = saved?.versions.at(-1) ?? null;
+
+  const reloadSaved = useCallback(async (key: string | null) => {
+    openKey.current = key;
+    const r = store && key !== null ? await getOrder(store, key) : null;
+    const value = r?.ok ? r.value : null;
+    if (r && !r.ok) report(r.problems);
+    if (!value) openKey.current = null;
+    setSaved(value);
+    return value;
+  }, [store, report]);
+
+  // The restored draft's saved order, once the store is open.
+  const restoredKey = restored?.orderKey ?? null;
+  useEffect(() => {
+    if (!store || restoredKey === null) return;
+    let live = true;
+    void getOrder(store, restoredKey).then((r) => {
+      if (!live || openKey.current !== restoredKey) return;
+      if (!r.ok) report(r.problems);
+      if (!r.ok || !r.value) openKey.current = null;
+      setSaved(r.ok ? r.value : null);
+    });
+    return () => { live = false; };
+  }, [store, report, restoredKey]);
+
+  useEffect(() => {
+    let live = true;
+    if (store && env && latest) void changedSince(store, env, latest.check).then((list) => { if (live) setChangeState({ version: latest, list }); });
+    return () => { live = false; };
+  }, [store, env, latest]);
+  const changes = changeState.version === latest ? changeState.list : [];
+
+  const flush = useCallback(async () => {
+    if (!store || running.current) return;
+    running.current = true;
+    while (pending.current) {
+      const file = pending.current;
+      pending.current = null;
+      setAutosave({ kind: 'saving' });
+      const r = await saveDraft(store, { orderKey: openKey.current, baseVersion: null, file, editedBy: initials });
+      if (r.ok) setAutosave({ kind: 'kept', at: r.value.editedAt });
+      else { setAutosave({ kind: 'failed' }); report(r.problems); }
+    }
+    running.current = false;
+  }, [store, initials, report]);
+
+  const edited = useCallback((file: JsonObject) => {
+    setCurrent(file);
+    pending.current = file;
+    void flush();
+  }, [flush]);
+
+  const save = useCallback(async (file: JsonObject, by: string | null): Promise<Result<OrderVersion>> => {
+    if (!store || !env) return notReady();
+    const r = await saveVersion(store, env, { orderKey: openKey.current, file, by });
+    if (!r.ok) { if (r.problems.some((p) => p.path === '(storage)')) report(r.problems); return r; }
+    await reloadSaved(r.value.record.key);
+    edited(file);
+    touch();
+    return { ok: true, value: r.value.version };
+  }, [store, env, report, reloadSaved, edited, touch]);
+
+  const sign = useCallback(async (file: JsonObject, who: string): Promise<Result<OrderVersion>> => {
+    if (!store || !env) return notReady();
+    const s = await save(file, who);
+    if (!s.ok) return s;
+    const r = await signOff(store, env, s.value.orderKey, s.value.n, who);
+    if (!r.ok && r.problems.some((p) => p.path === '(storage)')) report(r.problems);
+    await reloadSaved(s.value.orderKey);
+    touch();
+    return r;
+  }, [store, env, save, report, reloadSaved, touch]);
+
+  const open = useCallback(async (orderKey: string): Promise<JsonObject | null> => {
+    const value = await reloadSaved(orderKey);
+    const file = value?.versions.at(-1)?.file ?? null;
+    if (file) edited(file);
+    return file;
+  }, [reloadSaved, edited]);
+
+  const detach = useCallback((file: JsonObject) => {
+    openKey.current = null;
+    setSaved(null);
+    edited(file);
+  }, [edited]);
+
+  const forget = useCallback((orderKey: string) => {
+    if (openKey.current !== orderKey) return;
+    openKey.current = null;
+    setSaved(null);
+  }, []);
+
+  const copy = useCallback(async (orderKey: string, newId: string, by: string | null): Promise<Result<JsonObject>> => {
+    if (!store || !env) return notReady();
+    const r = await copyOrder(store, env, orderKey, newId, by);
+    if (!r.ok) { if (r.problems.some((p) => p.path === '(storage)')) report(r.problems); return r; }
+    await reloadSaved(r.value.record.key);
+    edited(r.value.version.file);
+    touch();
+    return { ok: true, value: r.value.version.file };
+  }, [store, env, report, reloadSaved, edited, touch]);
+
+  const suggestId = useCallback(async (orderId: string) => {
+    const all = store ? await allOrders(store) : null;
+    return nextOrderId(orderId, new Set(all?.ok ? all.value.map((o) => o.orderId) : []));
+  }, [store]);
+
+  return {
+    ready: store !== null && env !== null,
+    saved, latest,
+    unsaved: current !== null && (latest === null || !sameContent(latest.file, current)),
+    autosave, changes, edited, save, sign, open, detach, forget, copy, suggestId,
+  };
+}
+
+function notReady<T>(): Result<T> {
+  const problem: Problem = { path: '(storage)', message: 'the browser’s storage is not open yet' };
+  return { ok: false, problems: [problem] };
+}
