@@ -11,7 +11,6 @@ export interface OsmoSchema extends DBSchema {
   active: { key: 'catalog' | 'policy'; value: ActiveFile };
   library: { key: string; value: LibraryEntry };
   qa: { key: string; value: QaEntry; indexes: { order: string } };
-  settings: { key: string; value: { key: string; value: string } };
 }
 
 export type OsmoDb = IDBPDatabase<OsmoSchema>;
@@ -46,7 +45,6 @@ export async function openStore(name = DB_NAME, options: Partial<Pick<Store, 'no
           database.createObjectStore('library', { keyPath: 'hash' });
           const qa = database.createObjectStore('qa', { keyPath: 'id' });
           qa.createIndex('order', 'orderKey');
-          database.createObjectStore('settings', { keyPath: 'key' });
         }
       },
     });

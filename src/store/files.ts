@@ -29,6 +29,8 @@ export async function shippedFile(kind: RefKind): Promise<{ file: JsonObject; re
 /** The catalog and policy in force, and what went wrong reading a stored one (it is then the default). */
 export interface LoadedEnv {
   env: CheckEnv;
+  /** The catalog and policy files in force, as v1 JSON (for editors and export). */
+  files: { catalog: JsonObject; policy: JsonObject };
   problems: Problem[];
 }
 
@@ -38,7 +40,7 @@ async function loadOne<T>(store: Store, kind: RefKind, check: (input: unknown) =
   const active = stored.ok ? stored.value : undefined;
   if (active) {
     const valid = check(active.file);
-    if (valid.ok) return { value: valid.value.value, ref: active.ref, from: active.origin as Provenance };
+    if (valid.ok) return { value: valid.value.value, file: valid.value.file, ref: active.ref, from: active.origin as Provenance };
     // A stored file that no longer validates (e.g. written by another build) is kept in storage,
     // never deleted, and the shipped default is used until the user imports a good one.
     problems.push(...valid.problems.map((p) => ({ path: `stored ${kind}: ${p.path}`, message: p.message })));
@@ -46,7 +48,7 @@ async function loadOne<T>(store: Store, kind: RefKind, check: (input: unknown) =
   const shipped = await shippedFile(kind);
   const valid = check(shipped.file);
   if (!valid.ok) throw new Error(`shipped ${kind} is invalid`); // a build defect: the test suite checks the shipped files
-  return { value: valid.value.value, ref: shipped.ref, from: 'shipped' as Provenance };
+  return { value: valid.value.value, file: shipped.file, ref: shipped.ref, from: 'shipped' as Provenance };
 }
 
 /** Load the catalog and policy in force (stored ones, else the shipped defaults), each with its hash. */
@@ -60,6 +62,7 @@ export async function loadEnv(store: Store): Promise<LoadedEnv> {
       catalogRef: catalog.ref, policyRef: policy.ref,
       catalogFrom: catalog.from, policyFrom: policy.from,
     },
+    files: { catalog: catalog.file, policy: policy.file },
     problems,
   };
 }

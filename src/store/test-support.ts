@@ -36,6 +36,6 @@ export async function openTestStore(options: Partial<Pick<Store, 'now' | 'newKey
 /** Everything in every store, for "nothing changed" comparisons. */
 export async function snapshot(store: Store): Promise<Record<string, unknown[]>> {
   const out: Record<string, unknown[]> = {};
-  for (const name of ['orders', 'versions', 'drafts', 'active', 'library', 'qa', 'settings'] as const) out[name] = await store.db.getAll(name);
+  for (const name of ['orders', 'versions', 'drafts', 'active', 'library', 'qa'] as const) out[name] = await store.db.getAll(name);
   return out;
 }

@@ -5,7 +5,7 @@ import { createContext, useCallback, useContext, useEffect, useMemo, useState, t
 import type { Problem, Result } from '../../core/problems.ts';
 import type { CheckEnv } from '../../store/check.ts';
 import { DB_NAME, openStore, type Store } from '../../store/db.ts';
-import { loadEnv, resetRefFile, saveRefFile, type RefKind } from '../../store/files.ts';
+import { loadEnv, resetRefFile, saveRefFile, type LoadedEnv, type RefKind } from '../../store/files.ts';
 import { loadDraft } from '../../store/orders.ts';
 import type { ActiveFile, Draft, FileOrigin } from '../../store/types.ts';
 
@@ -15,6 +15,8 @@ export interface SavedWork {
   store: Store | null;
   /** The catalog and policy in force (null until loaded). */
   env: CheckEnv | null;
+  /** Their files as v1 JSON (null until loaded). */
+  refFiles: LoadedEnv['files'] | null;
   /** The open order's working copy found when the app started (restore it), if any. */
   restored: Draft | null;
   /** Storage problems to show (a full disk, a stored file that no longer validates). */
@@ -37,6 +39,7 @@ export function SavedWorkProvider({ dbName = DB_NAME, children }: { dbName?: str
   const [store, setStore] = useState<Store | null>(null);
   const [status, setStatus] = useState<SavedWork['status']>('loading');
   const [env, setEnv] = useState<CheckEnv | null>(null);
+  const [refFiles, setRefFiles] = useState<LoadedEnv['files'] | null>(null);
   const [restored, setRestored] = useState<Draft | null>(null);
   const [problems, setProblems] = useState<Problem[]>([]);
   const [revision, setRevision] = useState(0);
@@ -53,6 +56,7 @@ export function SavedWorkProvider({ dbName = DB_NAME, children }: { dbName?: str
       const draft = await loadDraft(r.value);
       if (!live) return;
       setEnv(loaded.env);
+      setRefFiles(loaded.files);
       setRestored(draft.ok ? draft.value : null);
       setProblems([...loaded.problems, ...(draft.ok ? [] : draft.problems)]);
       setStore(r.value);
@@ -70,6 +74,7 @@ export function SavedWorkProvider({ dbName = DB_NAME, children }: { dbName?: str
   const reload = useCallback(async (s: Store) => {
     const loaded = await loadEnv(s);
     setEnv(loaded.env);
+    setRefFiles(loaded.files);
     if (loaded.problems.length > 0) setProblems(loaded.problems);
   }, []);
   const saveRef = useCallback(async (kind: RefKind, file: unknown, origin: FileOrigin): Promise<Result<ActiveFile>> => {
@@ -86,8 +91,8 @@ export function SavedWorkProvider({ dbName = DB_NAME, children }: { dbName?: str
   }, [store, reload]);
 
   const value = useMemo<SavedWork>(
-    () => ({ status, store, env, restored, problems, report, dismiss, saveRef, resetRef, revision, touch }),
-    [status, store, env, restored, problems, report, dismiss, saveRef, resetRef, revision, touch],
+    () => ({ status, store, env, refFiles, restored, problems, report, dismiss, saveRef, resetRef, revision, touch }),
+    [status, store, env, refFiles, restored, problems, report, dismiss, saveRef, resetRef, revision, touch],
   );
   return <SavedWorkContext.Provider value={value}>{children}</SavedWorkContext.Provider>;
 }

@@ -49,6 +49,7 @@ export function useSavedOrder(initials: string | null): SavedOrderApi {
   const [autosave, setAutosave] = useState<AutosaveState>({ kind: 'idle' });
   const [changeState, setChangeState] = useState<{ version: OrderVersion | null; list: RefChange[] }>({ version: null, list: [] });
   const openKey = useRef<string | null>(restored?.orderKey ?? null);
+  const baseVersion = useRef<number | null>(restored?.baseVersion ?? null);
   const pending = useRef<JsonObject | null>(null);
   const running = useRef(false);
   const latest = saved?.versions.at(-1) ?? null;
@@ -59,6 +60,7 @@ export function useSavedOrder(initials: string | null): SavedOrderApi {
     const value = r?.ok ? r.value : null;
     if (r && !r.ok) report(r.problems);
     if (!value) openKey.current = null;
+    baseVersion.current = value?.record.latest ?? null;
     setSaved(value);
     return value;
   }, [store, report]);
@@ -72,6 +74,7 @@ export function useSavedOrder(initials: string | null): SavedOrderApi {
       if (!live || openKey.current !== restoredKey) return;
       if (!r.ok) report(r.problems);
       if (!r.ok || !r.value) openKey.current = null;
+      baseVersion.current = r.ok && r.value ? r.value.record.latest : null;
       setSaved(r.ok ? r.value : null);
     });
     return () => { live = false; };
@@ -91,7 +94,7 @@ export function useSavedOrder(initials: string | null): SavedOrderApi {
       const file = pending.current;
       pending.current = null;
       setAutosave({ kind: 'saving' });
-      const r = await saveDraft(store, { orderKey: openKey.current, baseVersion: null, file, editedBy: initials });
+      const r = await saveDraft(store, { orderKey: openKey.current, baseVersion: baseVersion.current, file, editedBy: initials });
       if (r.ok) setAutosave({ kind: 'kept', at: r.value.editedAt });
       else { setAutosave({ kind: 'failed' }); report(r.problems); }
     }
@@ -134,6 +137,7 @@ export function useSavedOrder(initials: string | null): SavedOrderApi {
 
   const detach = useCallback((file: JsonObject) => {
     openKey.current = null;
+    baseVersion.current = null;
     setSaved(null);
     edited(file);
   }, [edited]);
@@ -141,6 +145,7 @@ export function useSavedOrder(initials: string | null): SavedOrderApi {
   const forget = useCallback((orderKey: string) => {
     if (openKey.current !== orderKey) return;
     openKey.current = null;
+    baseVersion.current = null;
     setSaved(null);
   }, []);
 
