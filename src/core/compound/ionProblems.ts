@@ -1,0 +1,54 @@
+import { round, type D } from '../decimal.ts';
+import { fmt } from '../format.ts';
+import { ION_INFO, type IonKey, type IonTargets, type IonsJson } from './ions.ts';
+
+/** Why an ion order cannot be compounded exactly as written (or needs a look). */
+export type IonProblemCode =
+  | 'no-compounding-policy'
+  | 'ordered-below-other-lines'
+  | 'phosphate-cation-exceeds-order'
+  | 'no-stock'
+  | 'acetate-above-cations'
+  | 'chloride-above-cations'
+  | 'acetate-below-other-lines'
+  | 'chloride-below-other-lines'
+  | 'anion-ratio-unreachable'
+  | 'below-measurable-volume';
+
+/** The nearest feasible change to the ion order: what to tell the prescriber, and the changed fields. */
+export interface IonProposal {
+  text: string;
+  change: Partial<IonsJson>;
+}
+
+/**
+ * A problem with an ion order. `block`: an ordered amount cannot be delivered as written (the
+ * lines added are the proposal, not the order). `warn`: a preference could not be met in full, or
+ * a volume is too small to measure.
+ */
+export interface IonProblem {
+  code: IonProblemCode;
+  severity: 'block' | 'warn';
+  ion: IonKey | null;
+  /** Where in the order the problem sits, e.g. `ions.Na`. */
+  path: string;
+  message: string;
+  /** Where the rule or the figure comes from. */
+  source: string;
+  proposal: IonProposal | null;
+}
+
+/** Closing words of every proposal: the engine proposes, people decide. */
+export const CONFIRM = 'Confirm any change with the prescriber; local policy and the pharmacist decide.';
+
+/** An amount as text in the ion's unit, with the per-kg figure for per-kg orders: "26.67 mEq (1.778 mEq/kg)". */
+export function amountText(t: IonTargets, ion: IonKey, perBag: D): string {
+  const unit = ION_INFO[ion].unit;
+  const base = `${fmt(perBag, 2)} ${unit}`;
+  return t.per === 'kg' ? `${base} (${fmt(perBag.div(t.weightKg), 3)} ${unit}/kg)` : base;
+}
+
+/** A per-bag amount in the order's own terms, for a proposal's changed field. */
+export function inOrderTerms(t: IonTargets, perBag: D): number {
+  return t.per === 'kg' ? round(perBag.div(t.weightKg), 3) : round(perBag, 2);
+}
