@@ -94,7 +94,7 @@ function checkOtherLines(s: State, ctx: AllocationContext): void {
       code: 'ordered-below-other-lines', severity: 'block', ion, path: `ions.${ion}`,
       message: `${capital(label)} ordered ${amountText(s.t, ion, s.t[ion])} is below the ${amountText(s.t, ion, have)} that the order's other lines already deliver (${sourcesText(ctx.baselineSources[ion])}).`,
       source: ARITHMETIC,
-      proposal: { text: `${capital(label)} ${amountText(s.t, ion, have)} with no ${label} salt added, or a product with less ${label}. ${CONFIRM}`, change: changeOf(ion, inOrderTerms(s.t, have)) },
+      proposal: { text: `${capital(label)} ${amountText(s.t, ion, have)} with no ${label} salt added, or a product with less ${label}. ${CONFIRM}`, change: changeOf(ion, inOrderTerms(s.t, have, 'up')) },
     });
     s.t[ion] = have;
   }
@@ -147,7 +147,7 @@ function allocatePhosphate(s: State, ctx: AllocationContext): void {
       code: 'no-stock', severity: 'block', ion: 'phosphate', path: 'ions.phosphate',
       message: `The catalog holds no ${kinds.map((k) => SALT_WORDS[k]).join(' or ')} stock: the ${pText(need)} of phosphate cannot be added.`,
       source,
-      proposal: { text: `Phosphate ${pText(base.phosphate)} (nothing added) until a phosphate stock is in the catalog. ${CONFIRM}`, change: changeOf('phosphate', inOrderTerms(s.t, base.phosphate)) },
+      proposal: { text: `Phosphate ${pText(base.phosphate)} (nothing added) until a phosphate stock is in the catalog. ${CONFIRM}`, change: changeOf('phosphate', inOrderTerms(s.t, base.phosphate, 'up')) },
     });
     s.t.phosphate = base.phosphate;
     return;
@@ -187,7 +187,7 @@ function allocatePhosphate(s: State, ctx: AllocationContext): void {
   const label = ION_INFO[spoken.cation].label;
   const allowed = base.phosphate.plus(maxP(best));
   const raiseTo = s.t[spoken.cation].plus(cationFor(spoken, need)).minus(room(spoken));
-  const change: Partial<IonsJson> = changeOf('phosphate', inOrderTerms(s.t, allowed));
+  const change: Partial<IonsJson> = changeOf('phosphate', inOrderTerms(s.t, allowed, 'down'));
   if (requested !== 'auto' && best.kind !== requested) change.phosphateSalt = best.kind;
   s.problems.push({
     code: 'phosphate-cation-exceeds-order', severity: 'block', ion: spoken.cation, path: `ions.${spoken.cation}`,
@@ -220,7 +220,7 @@ function allocateCalcium(s: State, ctx: AllocationContext): void {
     source: allowed.source,
     proposal: {
       text: `Calcium ${amountText(s.t, 'Ca', ctx.baseline.Ca)} (nothing added) until a calcium stock the policy allows is in the catalog${chlorideHeld ? ', or a policy that lists "chloride" in compounding.calciumSalts' : ''}. ${CONFIRM}`,
-      change: changeOf('Ca', inOrderTerms(s.t, ctx.baseline.Ca)),
+      change: changeOf('Ca', inOrderTerms(s.t, ctx.baseline.Ca, 'up')),
     },
   });
   s.t.Ca = ctx.baseline.Ca;
@@ -236,7 +236,7 @@ function allocateMagnesium(s: State, ctx: AllocationContext): void {
     code: 'no-stock', severity: 'block', ion: 'Mg', path: 'ions.Mg',
     message: `The catalog holds no magnesium sulfate stock: the ${amountText(s.t, 'Mg', need)} of magnesium cannot be added.`,
     source: ARITHMETIC,
-    proposal: { text: `Magnesium ${amountText(s.t, 'Mg', ctx.baseline.Mg)} (nothing added) until a magnesium sulfate stock is in the catalog. ${CONFIRM}`, change: changeOf('Mg', inOrderTerms(s.t, ctx.baseline.Mg)) },
+    proposal: { text: `Magnesium ${amountText(s.t, 'Mg', ctx.baseline.Mg)} (nothing added) until a magnesium sulfate stock is in the catalog. ${CONFIRM}`, change: changeOf('Mg', inOrderTerms(s.t, ctx.baseline.Mg, 'up')) },
   });
   s.t.Mg = ctx.baseline.Mg;
 }
@@ -288,7 +288,7 @@ function planAnions(t: IonTargets, S: D, Cl0: D, Ac0: D, sources: { Cl: string; 
           problem: {
             code: 'acetate-below-other-lines', severity: 'block', ion: 'acetate', path: 'ions.anions.acetate',
             message: `Acetate ordered ${at('acetate', a.mEq)} is below the ${at('acetate', Ac0)} the other lines already deliver (${sources.acetate}).`,
-            proposal: { text: `Acetate ${at('acetate', Ac0)}: every sodium and potassium salt as chloride. ${CONFIRM}`, change: { anions: { acetate: inOrderTerms(t, Ac0) } } },
+            proposal: { text: `Acetate ${at('acetate', Ac0)}: every sodium and potassium salt as chloride. ${CONFIRM}`, change: { anions: { acetate: inOrderTerms(t, Ac0, 'up') } } },
           },
         };
       }
@@ -299,7 +299,7 @@ function planAnions(t: IonTargets, S: D, Cl0: D, Ac0: D, sources: { Cl: string; 
           problem: {
             code: 'acetate-above-cations', severity: 'block', ion: 'acetate', path: 'ions.anions.acetate',
             message: `Acetate ordered ${at('acetate', a.mEq)} is more than the cations allow: the other lines bring ${at('acetate', Ac0)} and the sodium and potassium left for chloride or acetate salts carry at most ${fmt(S, 2)} mEq, so at most ${at('acetate', most)}.`,
-            proposal: { text: `Acetate ${at('acetate', most)}: every sodium and potassium salt as acetate; or more sodium or potassium. ${CONFIRM}`, change: { anions: { acetate: inOrderTerms(t, most) } } },
+            proposal: { text: `Acetate ${at('acetate', most)}: every sodium and potassium salt as acetate; or more sodium or potassium. ${CONFIRM}`, change: { anions: { acetate: inOrderTerms(t, most, 'down') } } },
           },
         };
       }
@@ -313,7 +313,7 @@ function planAnions(t: IonTargets, S: D, Cl0: D, Ac0: D, sources: { Cl: string; 
           problem: {
             code: 'chloride-below-other-lines', severity: 'block', ion: 'Cl', path: 'ions.anions.chloride',
             message: `Chloride ordered ${at('Cl', a.mEq)} is below the ${at('Cl', Cl0)} the other lines already deliver (${sources.Cl}).`,
-            proposal: { text: `Chloride ${at('Cl', Cl0)}: every sodium and potassium salt as acetate. ${CONFIRM}`, change: { anions: { chloride: inOrderTerms(t, Cl0) } } },
+            proposal: { text: `Chloride ${at('Cl', Cl0)}: every sodium and potassium salt as acetate. ${CONFIRM}`, change: { anions: { chloride: inOrderTerms(t, Cl0, 'up') } } },
           },
         };
       }
@@ -324,7 +324,7 @@ function planAnions(t: IonTargets, S: D, Cl0: D, Ac0: D, sources: { Cl: string; 
           problem: {
             code: 'chloride-above-cations', severity: 'block', ion: 'Cl', path: 'ions.anions.chloride',
             message: `Chloride ordered ${at('Cl', a.mEq)} is more than the cations allow: the other lines bring ${at('Cl', Cl0)} and the sodium and potassium left for chloride or acetate salts carry at most ${fmt(S, 2)} mEq, so at most ${at('Cl', most)}.`,
-            proposal: { text: `Chloride ${at('Cl', most)}: every sodium and potassium salt as chloride; or more sodium or potassium. ${CONFIRM}`, change: { anions: { chloride: inOrderTerms(t, most) } } },
+            proposal: { text: `Chloride ${at('Cl', most)}: every sodium and potassium salt as chloride; or more sodium or potassium. ${CONFIRM}`, change: { anions: { chloride: inOrderTerms(t, most, 'down') } } },
           },
         };
       }
@@ -334,10 +334,12 @@ function planAnions(t: IonTargets, S: D, Cl0: D, Ac0: D, sources: { Cl: string; 
 }
 
 /** The preference actually met when stock shortages move the chloride share to x. */
-function achieved(t: IonTargets, x: D, S: D, Cl0: D, Ac0: D): { pref: AnionPreference; json: IonsJson['anions'] } {
+function achieved(t: IonTargets, x: D, wanted: D, S: D, Cl0: D, Ac0: D): { pref: AnionPreference; json: IonsJson['anions'] } {
   const a = t.anions;
-  if (a.kind === 'acetate-amount') { const v = Ac0.plus(S).minus(x); return { pref: { kind: 'acetate-amount', mEq: v }, json: { acetate: inOrderTerms(t, v) } }; }
-  if (a.kind === 'chloride-amount') { const v = Cl0.plus(x); return { pref: { kind: 'chloride-amount', mEq: v }, json: { chloride: inOrderTerms(t, v) } }; }
+  // Stock forced more chloride (x > wanted): acetate is at its most and chloride at its least.
+  const moreChloride = x.gt(wanted);
+  if (a.kind === 'acetate-amount') { const v = Ac0.plus(S).minus(x); return { pref: { kind: 'acetate-amount', mEq: v }, json: { acetate: inOrderTerms(t, v, moreChloride ? 'down' : 'up') } }; }
+  if (a.kind === 'chloride-amount') { const v = Cl0.plus(x); return { pref: { kind: 'chloride-amount', mEq: v }, json: { chloride: inOrderTerms(t, v, moreChloride ? 'up' : 'down') } }; }
   if (x.eq(S)) return { pref: { kind: 'chloride' }, json: 'chloride' };
   if (x.isZero()) return { pref: { kind: 'acetate' }, json: 'acetate' };
   const r = Cl0.plus(x).div(Ac0.plus(S).minus(x));
@@ -360,7 +362,7 @@ function allocateMonovalent(s: State, ctx: AllocationContext): void {
         code: 'no-stock', severity: 'block', ion: c, path: `ions.${c}`,
         message: `The catalog holds no ${label} chloride or ${label} acetate stock: ${amountText(s.t, c, rem[c])} of ${label} cannot be added.`,
         source: ARITHMETIC,
-        proposal: { text: `${capital(label)} ${amountText(s.t, c, without)} (what the other lines and the phosphate salt bring). ${CONFIRM}`, change: changeOf(c, inOrderTerms(s.t, without)) },
+        proposal: { text: `${capital(label)} ${amountText(s.t, c, without)} (what the other lines and the phosphate salt bring). ${CONFIRM}`, change: changeOf(c, inOrderTerms(s.t, without, 'up')) },
       });
       s.t[c] = without;
       rem[c] = ZERO;
@@ -384,7 +386,7 @@ function allocateMonovalent(s: State, ctx: AllocationContext): void {
   if (!x.eq(plan.x)) {
     const missing = (['Na', 'K'] as const).filter((c) => rem[c].gt(0) && (onlyCl(c) || onlyAc(c)))
       .map((c) => `${ION_INFO[c].label} ${onlyCl(c) ? 'acetate' : 'chloride'}`);
-    const got = achieved(s.t, x, S, Cl0, Ac0);
+    const got = achieved(s.t, x, plan.x, S, Cl0, Ac0);
     const amounts = s.t.anions.kind === 'acetate-amount' || s.t.anions.kind === 'chloride-amount';
     s.problems.push({
       code: 'no-stock', severity: amounts ? 'block' : 'warn', ion: x.gt(plan.x) ? 'Cl' : 'acetate', path: 'ions.anions',

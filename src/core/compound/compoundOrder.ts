@@ -36,6 +36,8 @@ export interface CompoundResult {
   compounded: Order;
   /** Per-bag targets as ordered; null when the policy has no compounding section. */
   targets: IonTargets | null;
+  /** The targets the lines meet: `targets` when feasible, else the nearest feasible ones. */
+  amended: IonTargets | null;
   /** What the order asks, per bag; `unordered` ions have no ordered amount (shown as 0). */
   ordered: IonTable;
   unordered: IonKey[];
@@ -96,12 +98,11 @@ function measurabilityProblem(l: CompoundedLine, t: IonTargets, policy: NonNulla
   };
 }
 
-function noPolicy(order: Order & { ions: IonOrder }, otherLines: IonTable): CompoundResult {
+function noPolicy(order: Order, otherLines: IonTable): CompoundResult {
   // Without a compounding section nothing is allocated; the ordered table needs no anion default.
-  const t = resolveIonOrder(order.ions, order.patient.weightKg, 'chloride');
-  const { ordered, unordered } = orderedTable(t);
+  const { ordered, unordered } = order.ions ? orderedTable(resolveIonOrder(order.ions, order.patient.weightKg, 'chloride')) : { ordered: emptyIons(), unordered: [] };
   return {
-    order, compounded: { ...order, ions: null }, targets: null, ordered, unordered, otherLines,
+    order, compounded: { ...order, ions: null }, targets: null, amended: null, ordered, unordered, otherLines,
     deliveredExact: otherLines, delivered: otherLines, lines: [], sequence: [], proposal: null, feasible: false,
     problems: [{
       code: 'no-compounding-policy', severity: 'block', ion: null, path: 'ions',
@@ -117,10 +118,16 @@ function noPolicy(order: Order & { ions: IonOrder }, otherLines: IonTable): Comp
  * included), problems with proposals, and the mixing sequence. Pure.
  */
 export function compoundOrder(order: Order & { ions: IonOrder }, catalog: Catalog, policy: Policy): CompoundResult {
+  const compounding = policy.compounding;
+  if (!compounding) return noPolicy(order, otherLineIons(order, policy).ions);
+  return compoundTargets(order, resolveIonOrder(order.ions, order.patient.weightKg, compounding.defaultAnions.value), catalog, policy);
+}
+
+/** compoundOrder for targets already resolved (e.g. a proposal's `amended` targets, checked again). */
+export function compoundTargets(order: Order, targets: IonTargets, catalog: Catalog, policy: Policy): CompoundResult {
   const other = otherLineIons(order, policy);
   const compounding = policy.compounding;
   if (!compounding) return noPolicy(order, other.ions);
-  const targets = resolveIonOrder(order.ions, order.patient.weightKg, compounding.defaultAnions.value);
   const { ordered, unordered } = orderedTable(targets);
   const result = allocate(targets, { catalog, compounding, ageGroup: order.patient.ageGroup, baseline: other.ions, baselineSources: other.sources });
 
@@ -134,10 +141,10 @@ export function compoundOrder(order: Order & { ions: IonOrder }, catalog: Catalo
   const compounded: Order = { ...order, lines: [...order.lines, ...added], ions: null };
   const deliveredExact = lines.reduce((sum, l) => addIons(sum, l.ionsExact), other.ions);
   const delivered = ionsFromSpecies(computeBag(compounded, policy).speciesMmol);
-  const changed = problems.some((p) => p.proposal && Object.keys(p.proposal.change).length > 0);
+  const changes = problems.flatMap((p) => (p.proposal && Object.keys(p.proposal.change).length > 0 ? [p.proposal.change] : []));
   return {
-    order, compounded, targets, ordered, unordered, otherLines: other.ions, deliveredExact, delivered, lines, problems,
-    proposal: changed ? targetsToJson(result.amended) : null,
+    order, compounded, targets, amended: result.amended, ordered, unordered, otherLines: other.ions, deliveredExact, delivered, lines, problems,
+    proposal: changes.length > 0 ? Object.assign(targetsToJson(targets), ...changes) as IonsJson : null,
     sequence: mixingSequence(compounded.lines, compounding.mixingSequence),
     feasible: !problems.some((p) => p.severity === 'block'),
   };

@@ -1,4 +1,4 @@
-import { round, type D } from '../decimal.ts';
+import { D, round } from '../decimal.ts';
 import { fmt } from '../format.ts';
 import { ION_INFO, type IonKey, type IonTargets, type IonsJson } from './ions.ts';
 
@@ -48,7 +48,12 @@ export function amountText(t: IonTargets, ion: IonKey, perBag: D): string {
   return t.per === 'kg' ? `${base} (${fmt(perBag.div(t.weightKg), 3)} ${unit}/kg)` : base;
 }
 
-/** A per-bag amount in the order's own terms, for a proposal's changed field. */
-export function inOrderTerms(t: IonTargets, perBag: D): number {
-  return t.per === 'kg' ? round(perBag.div(t.weightKg), 3) : round(perBag, 2);
+/**
+ * A per-bag amount in the order's own terms (0.01 per day, 0.001 per kg), for a proposal's changed
+ * field. `up` for a least amount, `down` for a most, so that the rounded proposal stays feasible.
+ */
+export function inOrderTerms(t: IonTargets, perBag: D, direction: 'up' | 'down'): number {
+  const value = t.per === 'kg' ? perBag.div(t.weightKg) : perBag;
+  const places = t.per === 'kg' ? 3 : 2;
+  return round(value.toDecimalPlaces(places, direction === 'up' ? D.ROUND_UP : D.ROUND_DOWN), places);
 }
