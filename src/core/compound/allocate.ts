@@ -62,6 +62,13 @@ interface State {
 }
 
 const ARITHMETIC = 'arithmetic: stock compositions from the catalog (label values)';
+
+// Differences below this many mEq (or mmol) are decimal rounding at 40 significant digits, not
+// a shortfall: without it a proposal computed as "at most X" could fail by 1e-38 when checked again.
+const EPS = new D('1e-20');
+const over = (a: D, b: D): boolean => a.minus(b).gt(EPS);
+const under = (a: D, b: D): boolean => b.minus(a).gt(EPS);
+const clamp = (x: D, hi: D): D => D.min(D.max(x, ZERO), hi);
 type OrderedIon = 'Na' | 'K' | 'Ca' | 'Mg' | 'phosphate';
 
 function capital(text: string): string {
@@ -75,7 +82,7 @@ function changeOf(ion: OrderedIon, value: number): Partial<IonsJson> {
 }
 
 function add(s: State, a: Allocation): void {
-  if (!a.amount.gt(0)) return;
+  if (!over(a.amount, ZERO)) return;
   s.allocations.push(a);
   s.added = addIons(s.added, allocationIons(a));
 }
@@ -88,7 +95,7 @@ function sourcesText(names: readonly string[]): string {
 function checkOtherLines(s: State, ctx: AllocationContext): void {
   for (const ion of ['Na', 'K', 'Ca', 'Mg', 'phosphate'] as const) {
     const have = ctx.baseline[ion];
-    if (!have.gt(s.t[ion])) continue;
+    if (!over(have, s.t[ion])) continue;
     const label = ION_INFO[ion].label;
     s.problems.push({
       code: 'ordered-below-other-lines', severity: 'block', ion, path: `ions.${ion}`,
@@ -129,14 +136,14 @@ const SALT_WORDS: Readonly<Record<PhosphateSalt, string>> = {
 function allocatePhosphate(s: State, ctx: AllocationContext): void {
   const base = ctx.baseline;
   const need = s.t.phosphate.minus(base.phosphate);
-  if (!need.gt(0)) return;
+  if (!over(need, ZERO)) return;
   const auto = autoPhosphateOrder(ctx.compounding, ctx.ageGroup);
   const requested = s.t.phosphateSalt;
   const kinds = requested === 'auto' ? auto.order : [...new Set<PhosphateSalt>([requested, ...auto.order, ...PHOSPHATE_SALTS])];
   const options = kinds.flatMap((k) => phosphateOption(k, need, ctx) ?? []);
   const room = (o: PhosphateOption): D => D.max(s.t[o.cation].minus(base[o.cation]).minus(s.added[o.cation]), ZERO);
   const cationFor = (o: PhosphateOption, mmol: D): D => mmol.times(o.cationPerP);
-  const fits = (o: PhosphateOption): boolean => cationFor(o, need).lte(room(o));
+  const fits = (o: PhosphateOption): boolean => !over(cationFor(o, need), room(o));
   const maxP = (o: PhosphateOption): D => room(o).div(o.cationPerP);
   const pText = (v: D): string => amountText(s.t, 'phosphate', v);
   const cText = (o: PhosphateOption, v: D): string => amountText(s.t, o.cation, v);
@@ -206,7 +213,7 @@ function allocatePhosphate(s: State, ctx: AllocationContext): void {
 /** Step 2: calcium, as gluconate unless the policy allows (and prefers) chloride. */
 function allocateCalcium(s: State, ctx: AllocationContext): void {
   const need = s.t.Ca.minus(ctx.baseline.Ca);
-  if (!need.gt(0)) return;
+  if (!over(need, ZERO)) return;
   const mmol = mEqToMmol('Ca', as(need, 'mEq'));
   const allowed = ctx.compounding.calciumSalts;
   for (const salt of allowed.order) {
@@ -229,7 +236,7 @@ function allocateCalcium(s: State, ctx: AllocationContext): void {
 /** Step 3: magnesium as sulfate. */
 function allocateMagnesium(s: State, ctx: AllocationContext): void {
   const need = s.t.Mg.minus(ctx.baseline.Mg);
-  if (!need.gt(0)) return;
+  if (!over(need, ZERO)) return;
   const product = pickStock(stocksOf(ctx.catalog, ['Mg', 'sulfate']), 'Mg', mEqToMmol('Mg', as(need, 'mEq')), ctx.compounding.smallestMeasurableMl.value);
   if (product) { add(s, { product, species: 'Mg', unit: 'mEq', amount: need, purpose: 'magnesium' }); return; }
   s.problems.push({
@@ -266,7 +273,7 @@ function planAnions(t: IonTargets, S: D, Cl0: D, Ac0: D, sources: { Cl: string; 
       if (S.isZero()) return { x: ZERO, problem: null, amended: a };
       const R = a.chlorideToAcetate;
       const x = R.times(Ac0.plus(S)).minus(Cl0).div(R.plus(1));
-      if (x.gte(0) && x.lte(S)) return { x, problem: null, amended: a };
+      if (!under(x, ZERO) && !over(x, S)) return { x: clamp(x, S), problem: null, amended: a };
       const allAcetate = x.lt(0);
       const xNear = allAcetate ? ZERO : S;
       const asked = a.balanced ? 'balanced chloride and acetate (1 : 1)' : `a chloride : acetate ratio of ${fmt(R, 2)} : 1`;
@@ -282,7 +289,7 @@ function planAnions(t: IonTargets, S: D, Cl0: D, Ac0: D, sources: { Cl: string; 
     }
     case 'acetate-amount': {
       const fromSalts = a.mEq.minus(Ac0);
-      if (fromSalts.lt(0)) {
+      if (under(fromSalts, ZERO)) {
         return {
           x: S, amended: { kind: 'acetate-amount', mEq: Ac0 },
           problem: {
@@ -292,7 +299,7 @@ function planAnions(t: IonTargets, S: D, Cl0: D, Ac0: D, sources: { Cl: string; 
           },
         };
       }
-      if (fromSalts.gt(S)) {
+      if (over(fromSalts, S)) {
         const most = Ac0.plus(S);
         return {
           x: ZERO, amended: { kind: 'acetate-amount', mEq: most },
@@ -303,11 +310,11 @@ function planAnions(t: IonTargets, S: D, Cl0: D, Ac0: D, sources: { Cl: string; 
           },
         };
       }
-      return { x: S.minus(fromSalts), problem: null, amended: a };
+      return { x: clamp(S.minus(fromSalts), S), problem: null, amended: a };
     }
     case 'chloride-amount': {
       const fromSalts = a.mEq.minus(Cl0);
-      if (fromSalts.lt(0)) {
+      if (under(fromSalts, ZERO)) {
         return {
           x: ZERO, amended: { kind: 'chloride-amount', mEq: Cl0 },
           problem: {
@@ -317,7 +324,7 @@ function planAnions(t: IonTargets, S: D, Cl0: D, Ac0: D, sources: { Cl: string; 
           },
         };
       }
-      if (fromSalts.gt(S)) {
+      if (over(fromSalts, S)) {
         const most = Cl0.plus(S);
         return {
           x: S, amended: { kind: 'chloride-amount', mEq: most },
@@ -328,7 +335,7 @@ function planAnions(t: IonTargets, S: D, Cl0: D, Ac0: D, sources: { Cl: string; 
           },
         };
       }
-      return { x: fromSalts, problem: null, amended: a };
+      return { x: clamp(fromSalts, S), problem: null, amended: a };
     }
   }
 }
@@ -355,7 +362,7 @@ function allocateMonovalent(s: State, ctx: AllocationContext): void {
   for (const c of ['Na', 'K'] as const) {
     rem[c] = D.max(s.t[c].minus(base[c]).minus(s.added[c]), ZERO);
     stock[c] = { Cl: stocksOf(ctx.catalog, [c, 'Cl']), acetate: stocksOf(ctx.catalog, [c, 'acetate']) };
-    if (rem[c].gt(0) && stock[c].Cl.length === 0 && stock[c].acetate.length === 0) {
+    if (over(rem[c], ZERO) && stock[c].Cl.length === 0 && stock[c].acetate.length === 0) {
       const label = ION_INFO[c].label;
       const without = s.t[c].minus(rem[c]);
       s.problems.push({
@@ -383,7 +390,7 @@ function allocateMonovalent(s: State, ctx: AllocationContext): void {
   const forcedCl = (['Na', 'K'] as const).reduce((sum, c) => (onlyCl(c) ? sum.plus(rem[c]) : sum), ZERO);
   const forcedAc = (['Na', 'K'] as const).reduce((sum, c) => (onlyAc(c) && !onlyCl(c) ? sum.plus(rem[c]) : sum), ZERO);
   const x = D.min(D.max(plan.x, forcedCl), S.minus(forcedAc));
-  if (!x.eq(plan.x)) {
+  if (over(x.minus(plan.x).abs(), ZERO)) {
     const missing = (['Na', 'K'] as const).filter((c) => rem[c].gt(0) && (onlyCl(c) || onlyAc(c)))
       .map((c) => `${ION_INFO[c].label} ${onlyCl(c) ? 'acetate' : 'chloride'}`);
     const got = achieved(s.t, x, plan.x, S, Cl0, Ac0);
@@ -402,7 +409,7 @@ function allocateMonovalent(s: State, ctx: AllocationContext): void {
   const flexTotal = flexible.reduce((sum, c) => sum.plus(rem[c]), ZERO);
   const share = flexTotal.isZero() ? ZERO : x.minus(forcedCl).div(flexTotal);
   for (const c of ['Na', 'K'] as const) {
-    if (!rem[c].gt(0)) continue;
+    if (!over(rem[c], ZERO)) continue;
     const chloride = onlyCl(c) ? rem[c] : onlyAc(c) ? ZERO : rem[c].times(share);
     const acetate = rem[c].minus(chloride);
     const clStock = pickStock(stock[c].Cl, c, chloride, smallest);
