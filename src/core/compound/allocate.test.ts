@@ -62,7 +62,7 @@ describe('sodium or potassium below what the phosphate salt alone brings', () =>
     // The lines meet the proposal: potassium phosphates, then Na 20 and K 80 − 29.33 = 50.67 as chloride.
     expect(ids(r)).toEqual(['potassium-phosphates-3', 'sodium-chloride-4', 'potassium-chloride-2']);
     expect(r.lines[2]?.amount.toNumber()).toBeCloseTo(50.6667, 4);
-    expect(r.proposal).toEqual({ per: 'day', Na: 20, K: 80, Ca: 0, Mg: 0, phosphate: 20, phosphateSalt: 'potassium', anions: 'chloride' });
+    expect(r.proposal).toEqual({ per: 'day', Na: 20, K: 80, phosphate: 20, phosphateSalt: 'potassium', anions: 'chloride' });
     const again = proposalAgain(json, r);
     expect(again.problems).toEqual([]);
   });
@@ -114,6 +114,18 @@ describe('ordered below what the order\'s other lines already deliver', () => {
     expect(r.problems[0]?.proposal?.change).toEqual({ Na: 38 });
     expect(ids(r)).toEqual(['potassium-chloride-2']);
     expect(proposalAgain(json, r).problems).toEqual([]);
+  });
+
+  it('an ion the order does not name is none added, but what the amino acids bring of it is no problem', () => {
+    // Sodium absent: amino acids 10% bring 38 mEq (1000 mL × 0.038) and no sodium salt is added.
+    const lines = [{ product: 'amino-acids-10', amount: 100, unit: 'g' }];
+    const absent = compound(orderJson({ per: 'day', K: 40, anions: 'chloride' }, lines));
+    expect(absent.problems).toEqual([]);
+    expect(ids(absent)).toEqual(['potassium-chloride-2']);
+    expect(absent.delivered.Na.toString()).toBe('38');
+    expect(absent.unordered).toContain('Na');
+    // Sodium ordered as 0 is held to 0: the same bag is refused.
+    expect(codes(compound(orderJson({ per: 'day', Na: 0, K: 40, anions: 'chloride' }, lines)))).toEqual(['ordered-below-other-lines']);
   });
 
   it('per kg: the proposal is per kg too, rounded up (1.995 mEq ÷ 1.5 kg = 1.33 mEq/kg)', () => {

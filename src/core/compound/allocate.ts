@@ -5,7 +5,7 @@ import { as, mEqToMmol } from '../units.ts';
 import type { Catalog, Product } from '../catalog.ts';
 import type { AgeGroup } from '../order.ts';
 import { PHOSPHATE_SALTS, autoPhosphateOrder, type CompoundingPolicy, type PhosphateSalt } from './compoundingPolicy.ts';
-import { ION_INFO, addIons, emptyIons, ionsOfProduct, tableAmount, type AnionPreference, type IonKey, type IonTable, type IonTargets, type IonsJson, type Monovalent } from './ions.ts';
+import { ION_INFO, ORDERED_IONS, addIons, emptyIons, ionsOfProduct, tableAmount, type AnionPreference, type IonKey, type IonTable, type IonTargets, type IonsJson, type Monovalent, type OrderedIon } from './ions.ts';
 import { pickStock, stocksOf } from './stocks.ts';
 import { CONFIRM, amountText, inOrderTerms, type IonProblem } from './ionProblems.ts';
 
@@ -69,7 +69,6 @@ const EPS = new D('1e-20');
 const over = (a: D, b: D): boolean => a.minus(b).gt(EPS);
 const under = (a: D, b: D): boolean => b.minus(a).gt(EPS);
 const clamp = (x: D, hi: D): D => D.min(D.max(x, ZERO), hi);
-type OrderedIon = 'Na' | 'K' | 'Ca' | 'Mg' | 'phosphate';
 
 function capital(text: string): string {
   return text.charAt(0).toUpperCase() + text.slice(1);
@@ -87,15 +86,21 @@ function add(s: State, a: Allocation): void {
   s.added = addIons(s.added, allocationIons(a));
 }
 
+/** "Sodium ordered 20.00 mEq is below what" / "No sodium is ordered, yet" — the start of a phosphate-cation message. */
+function orderedPhrase(t: IonTargets, ion: Monovalent): string {
+  const label = ION_INFO[ion].label;
+  return t.given[ion] ? `${capital(label)} ordered ${amountText(t, ion, t[ion])} is below what` : `No ${label} is ordered, yet`;
+}
+
 function sourcesText(names: readonly string[]): string {
   return names.length > 0 ? names.join(', ') : 'the order\'s other lines';
 }
 
 /** Step 0: an ion the order's own lines already bring in excess of the order. */
 function checkOtherLines(s: State, ctx: AllocationContext): void {
-  for (const ion of ['Na', 'K', 'Ca', 'Mg', 'phosphate'] as const) {
+  for (const ion of ORDERED_IONS) {
     const have = ctx.baseline[ion];
-    if (!over(have, s.t[ion])) continue;
+    if (!s.t.given[ion] || !over(have, s.t[ion])) continue;
     const label = ION_INFO[ion].label;
     s.problems.push({
       code: 'ordered-below-other-lines', severity: 'block', ion, path: `ions.${ion}`,
@@ -169,10 +174,9 @@ function allocatePhosphate(s: State, ctx: AllocationContext): void {
         change: { phosphateSalt: chosen.kind },
       };
       if (asked) {
-        const label = ION_INFO[asked.cation].label;
         s.problems.push({
           code: 'phosphate-cation-exceeds-order', severity: 'block', ion: asked.cation, path: `ions.${asked.cation}`,
-          message: `${capital(label)} ordered ${cText(asked, s.t[asked.cation])} is below what ${asked.product.name} alone delivers with ${pText(need)} of phosphate: ${cText(asked, cationFor(asked, need))} (${fmt(asked.cationPerP, 3)} mEq per mmol P)${base[asked.cation].gt(0) ? `, on top of the ${cText(asked, base[asked.cation])} the other lines bring` : ''}.`,
+          message: `${orderedPhrase(s.t, asked.cation)} ${asked.product.name} alone delivers with ${pText(need)} of phosphate: ${cText(asked, cationFor(asked, need))} (${fmt(asked.cationPerP, 3)} mEq per mmol P)${base[asked.cation].gt(0) ? `, on top of the ${cText(asked, base[asked.cation])} the other lines bring` : ''}.`,
           source, proposal,
         });
       } else {
@@ -198,7 +202,7 @@ function allocatePhosphate(s: State, ctx: AllocationContext): void {
   if (requested !== 'auto' && best.kind !== requested) change.phosphateSalt = best.kind;
   s.problems.push({
     code: 'phosphate-cation-exceeds-order', severity: 'block', ion: spoken.cation, path: `ions.${spoken.cation}`,
-    message: `${capital(label)} ordered ${cText(spoken, s.t[spoken.cation])} is below what ${spoken.product.name} alone delivers with ${pText(need)} of phosphate: ${cText(spoken, cationFor(spoken, need))} (${fmt(spoken.cationPerP, 3)} mEq per mmol P). No phosphate salt in the catalog fits the sodium and potassium ordered: ${options.map((o) => `${o.product.name} needs ${cText(o, cationFor(o, need))} ${ION_INFO[o.cation].label}, ${cText(o, room(o))} is left`).join('; ')}.`,
+    message: `${orderedPhrase(s.t, spoken.cation)} ${spoken.product.name} alone delivers with ${pText(need)} of phosphate: ${cText(spoken, cationFor(spoken, need))} (${fmt(spoken.cationPerP, 3)} mEq per mmol P). No phosphate salt in the catalog fits the sodium and potassium ordered: ${options.map((o) => `${o.product.name} needs ${cText(o, cationFor(o, need))} ${ION_INFO[o.cation].label}, ${cText(o, room(o))} is left`).join('; ')}.`,
     source,
     proposal: {
       text: `Phosphate ${pText(allowed)} as ${best.product.name} (the most the ${ION_INFO[best.cation].label} ordered allows), or raise ${label} to ${cText(spoken, raiseTo)}. ${CONFIRM}`,

@@ -173,7 +173,7 @@ describe('hand-computed allocations', () => {
     expect(s(r.delivered.Cl)).toBe('41.2');
     expect(s(r.delivered.acetate)).toBe('112.8');
     expect(s(r.ordered.Cl)).toBe('41');
-    expect(r.unordered).toEqual(['acetate']);
+    expect(r.unordered).toEqual(['Ca', 'Mg', 'acetate']);
   });
 });
 

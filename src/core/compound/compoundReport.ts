@@ -13,7 +13,7 @@ const anions = z.union([
   z.object({ acetate: num }), z.object({ chloride: num }), z.object({ chlorideToAcetate: num }),
 ]);
 const ionsBlock = z.object({
-  per: z.enum(['day', 'kg']), Na: num, K: num, Ca: num, Mg: num, phosphate: num,
+  per: z.enum(['day', 'kg']), Na: num.optional(), K: num.optional(), Ca: num.optional(), Mg: num.optional(), phosphate: num.optional(),
   phosphateSalt: z.enum([...PHOSPHATE_SALTS, 'auto']), anions,
 });
 
@@ -42,7 +42,7 @@ export const compoundReportSchema = z.object({
     belowMeasurable: z.boolean(),
   })),
   ordered: ionTable,
-  /** Ions with no ordered amount (chloride and acetate under a preference); shown as 0 in `ordered`. */
+  /** Ions with no ordered amount (absent from the ion order; chloride and acetate under a preference); shown as 0 in `ordered`. */
   unordered: z.array(ionKey),
   delivered: ionTable,
   deliveredBeforeRounding: ionTable,

@@ -33,7 +33,7 @@ describe('resolveIonOrder', () => {
     expect(t.phosphateSalt).toBe('auto');
     const { ordered, unordered } = orderedTable(t);
     expect(ordered.acetate.toString()).toBe('2.2');
-    expect(unordered).toEqual(['Cl']);
+    expect(unordered).toEqual(['K', 'Ca', 'Mg', 'Cl']);
   });
 
   it('takes the policy default when no anion preference is ordered', () => {
@@ -42,8 +42,8 @@ describe('resolveIonOrder', () => {
     expect(t.anions).toEqual({ kind: 'ratio', chlorideToAcetate: new D(1), balanced: true });
   });
 
-  it('writes targets back in the order\'s terms', () => {
+  it('writes targets back in the order\'s terms, absent ions absent', () => {
     const t = resolveIonOrder({ per: 'kg', Na: new D(3), anions: { chloride: new D(1) } }, new D('1.1'), 'balanced');
-    expect(targetsToJson(t)).toEqual({ per: 'kg', Na: 3, K: 0, Ca: 0, Mg: 0, phosphate: 0, phosphateSalt: 'auto', anions: { chloride: 1 } });
+    expect(targetsToJson(t)).toEqual({ per: 'kg', Na: 3, phosphateSalt: 'auto', anions: { chloride: 1 } });
   });
 });

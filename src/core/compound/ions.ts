@@ -1,5 +1,5 @@
 import { D, ZERO, round } from '../decimal.ts';
-import { SPECIES, isCharged, type SpeciesId } from '../species.ts';
+import { isCharged, type SpeciesId } from '../species.ts';
 import { as, mmolToMEq } from '../units.ts';
 import type { Product } from '../catalog.ts';
 import type { IonOrder } from '../order.ts';
@@ -84,10 +84,20 @@ export type AnionPreference =
   | { kind: 'acetate-amount'; mEq: D }
   | { kind: 'chloride-amount'; mEq: D };
 
+/** The ions an order can ask for by amount (chloride and acetate follow the anion preference). */
+export type OrderedIon = 'Na' | 'K' | 'Ca' | 'Mg' | 'phosphate';
+export const ORDERED_IONS: readonly OrderedIon[] = ['Na', 'K', 'Ca', 'Mg', 'phosphate'];
+
 /** An ion order resolved to per-bag amounts (per-kg amounts multiplied by the dosing weight). */
 export interface IonTargets {
   per: 'day' | 'kg';
   weightKg: D;
+  /**
+   * Which ions the order names. An absent ion is none ordered: no salt of it is added and no
+   * phosphate salt may bring it; what the order's own lines bring of it is shown, not refused.
+   * An ion ordered as 0 is held to 0.
+   */
+  given: Readonly<Record<OrderedIon, boolean>>;
   Na: D;
   K: D;
   Ca: D;
@@ -119,6 +129,7 @@ export function resolveIonOrder(ions: IonOrder, weightKg: D, defaultAnions: Anio
   return {
     per: ions.per,
     weightKg,
+    given: { Na: ions.Na !== undefined, K: ions.K !== undefined, Ca: ions.Ca !== undefined, Mg: ions.Mg !== undefined, phosphate: ions.phosphate !== undefined },
     Na: amount(ions.Na),
     K: amount(ions.K),
     Ca: amount(ions.Ca),
@@ -130,10 +141,10 @@ export function resolveIonOrder(ions: IonOrder, weightKg: D, defaultAnions: Anio
   };
 }
 
-/** What the order asks of each ion, per bag; chloride and acetate only when ordered as amounts. */
+/** What the order asks of each ion, per bag; `unordered` lists the ions it names no amount of (shown as 0). */
 export function orderedTable(t: IonTargets): { ordered: IonTable; unordered: IonKey[] } {
   const ordered: IonTable = { ...emptyIons(), Na: t.Na, K: t.K, Ca: t.Ca, Mg: t.Mg, phosphate: t.phosphate };
-  const unordered: IonKey[] = [];
+  const unordered: IonKey[] = ORDERED_IONS.filter((k) => !t.given[k]);
   if (t.anions.kind === 'chloride-amount') ordered.Cl = t.anions.mEq; else unordered.push('Cl');
   if (t.anions.kind === 'acetate-amount') ordered.acetate = t.anions.mEq; else unordered.push('acetate');
   return { ordered, unordered };
@@ -142,16 +153,16 @@ export function orderedTable(t: IonTargets): { ordered: IonTable; unordered: Ion
 /** An ion order as JSON, in the order's own terms (per day or per kg), for proposals. */
 export interface IonsJson {
   per: 'day' | 'kg';
-  Na: number;
-  K: number;
-  Ca: number;
-  Mg: number;
-  phosphate: number;
+  Na?: number;
+  K?: number;
+  Ca?: number;
+  Mg?: number;
+  phosphate?: number;
   phosphateSalt: PhosphateSalt | 'auto';
   anions: 'chloride' | 'acetate' | 'balanced' | { acetate: number } | { chloride: number } | { chlorideToAcetate: number };
 }
 
-/** Targets back to an ion order block (per-kg orders divided by the weight; 2 decimals per day, 3 per kg). */
+/** Targets back to an ion order block (per-kg orders divided by the weight; 2 decimals per day, 3 per kg); absent ions stay absent. */
 export function targetsToJson(t: IonTargets): IonsJson {
   const perKg = t.per === 'kg';
   const show = (v: D): number => (perKg ? round(v.div(t.weightKg), 3) : round(v, 2));
@@ -163,15 +174,12 @@ export function targetsToJson(t: IonTargets): IonsJson {
     case 'acetate-amount': anions = { acetate: show(a.mEq) }; break;
     case 'chloride-amount': anions = { chloride: show(a.mEq) }; break;
   }
-  return { per: t.per, Na: show(t.Na), K: show(t.K), Ca: show(t.Ca), Mg: show(t.Mg), phosphate: show(t.phosphate), phosphateSalt: t.phosphateSalt, anions };
+  const out: IonsJson = { per: t.per, phosphateSalt: t.phosphateSalt, anions };
+  for (const k of ORDERED_IONS) if (t.given[k]) out[k] = show(t[k]);
+  return out;
 }
 
 /** Display name of an ion with its unit, e.g. "sodium (mEq)". */
 export function ionLabel(ion: IonKey): string {
   return `${ION_INFO[ion].label} (${ION_INFO[ion].unit})`;
-}
-
-/** The species an mEq or mmol line of this ion counts. */
-export function speciesLabel(s: SpeciesId): string {
-  return SPECIES[s].label;
 }
