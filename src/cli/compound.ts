@@ -43,8 +43,8 @@ export function compoundTable(r: CompoundReport): string {
     ]);
   }
   out.push(...columns(rows, [false, true, true, true, true, true]));
-  if (r.deliveredPerKg) out.push(`    per kg: ${ION_KEYS.map((k) => `${ION_INFO[k].label} ${r.deliveredPerKg?.[k] ?? 0}`).join(', ')}`);
-  if (r.unordered.length > 0) out.push(`    (-: no amount ordered; ${r.unordered.map((k) => ION_INFO[k].label).join(' and ')} follow the anion preference)`);
+  if (r.deliveredPerKg) out.push(`    delivered per kg: ${ION_KEYS.map((k) => `${ION_INFO[k].label} ${(r.deliveredPerKg?.[k] ?? 0).toFixed(3)}`).join(', ')}`);
+  if (r.unordered.length > 0) out.push(`    (-: no amount ordered: ${r.unordered.map((k) => ION_INFO[k].label).join(', ')})`);
   if (r.problems.length === 0) out.push('  Problems: none');
   for (const p of r.problems) {
     out.push(`  ${TAG[p.severity]} ${p.code}${p.ion ? ` (${ION_INFO[p.ion].label})` : ''}: ${p.message}`);

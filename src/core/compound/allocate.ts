@@ -7,7 +7,7 @@ import type { AgeGroup } from '../order.ts';
 import { PHOSPHATE_SALTS, autoPhosphateOrder, type CompoundingPolicy, type PhosphateSalt } from './compoundingPolicy.ts';
 import { ION_INFO, ORDERED_IONS, addIons, emptyIons, ionsOfProduct, tableAmount, type AnionPreference, type IonKey, type IonTable, type IonTargets, type IonsJson, type Monovalent, type OrderedIon } from './ions.ts';
 import { pickStock, stocksOf } from './stocks.ts';
-import { CONFIRM, amountText, inOrderTerms, type IonProblem } from './ionProblems.ts';
+import { CONFIRM, amountText, inOrderTerms, proposedText, type IonProblem } from './ionProblems.ts';
 
 /** Which part of the ion order a line meets. */
 export type AllocationPurpose = 'phosphate' | 'calcium' | 'magnesium' | 'sodium-potassium';
@@ -106,7 +106,7 @@ function checkOtherLines(s: State, ctx: AllocationContext): void {
       code: 'ordered-below-other-lines', severity: 'block', ion, path: `ions.${ion}`,
       message: `${capital(label)} ordered ${amountText(s.t, ion, s.t[ion])} is below the ${amountText(s.t, ion, have)} that the order's other lines already deliver (${sourcesText(ctx.baselineSources[ion])}).`,
       source: ARITHMETIC,
-      proposal: { text: `${capital(label)} ${amountText(s.t, ion, have)} with no ${label} salt added, or a product with less ${label}. ${CONFIRM}`, change: changeOf(ion, inOrderTerms(s.t, have, 'up')) },
+      proposal: { text: `${capital(label)} ${proposedText(s.t, ion, have, 'up')} with no ${label} salt added, or a product with less ${label}. ${CONFIRM}`, change: changeOf(ion, inOrderTerms(s.t, have, 'up')) },
     });
     s.t[ion] = have;
   }
@@ -159,7 +159,7 @@ function allocatePhosphate(s: State, ctx: AllocationContext): void {
       code: 'no-stock', severity: 'block', ion: 'phosphate', path: 'ions.phosphate',
       message: `The catalog holds no ${kinds.map((k) => SALT_WORDS[k]).join(' or ')} stock: the ${pText(need)} of phosphate cannot be added.`,
       source,
-      proposal: { text: `Phosphate ${pText(base.phosphate)} (nothing added) until a phosphate stock is in the catalog. ${CONFIRM}`, change: changeOf('phosphate', inOrderTerms(s.t, base.phosphate, 'up')) },
+      proposal: { text: `Phosphate ${proposedText(s.t, 'phosphate', base.phosphate, 'up')} (nothing added) until a phosphate stock is in the catalog. ${CONFIRM}`, change: changeOf('phosphate', inOrderTerms(s.t, base.phosphate, 'up')) },
     });
     s.t.phosphate = base.phosphate;
     return;
@@ -205,7 +205,7 @@ function allocatePhosphate(s: State, ctx: AllocationContext): void {
     message: `${orderedPhrase(s.t, spoken.cation)} ${spoken.product.name} alone delivers with ${pText(need)} of phosphate: ${cText(spoken, cationFor(spoken, need))} (${fmt(spoken.cationPerP, 3)} mEq per mmol P). No phosphate salt in the catalog fits the sodium and potassium ordered: ${options.map((o) => `${o.product.name} needs ${cText(o, cationFor(o, need))} ${ION_INFO[o.cation].label}, ${cText(o, room(o))} is left`).join('; ')}.`,
     source,
     proposal: {
-      text: `Phosphate ${pText(allowed)} as ${best.product.name} (the most the ${ION_INFO[best.cation].label} ordered allows), or raise ${label} to ${cText(spoken, raiseTo)}. ${CONFIRM}`,
+      text: `Phosphate ${proposedText(s.t, 'phosphate', allowed, 'down')} as ${best.product.name} (the most the ${ION_INFO[best.cation].label} ordered allows), or raise ${label} to ${cText(spoken, raiseTo)}. ${CONFIRM}`,
       change,
     },
   });
@@ -230,7 +230,7 @@ function allocateCalcium(s: State, ctx: AllocationContext): void {
     message: `The catalog holds no calcium ${allowed.order.join(' or ')} stock${chlorideHeld ? ' (it holds calcium chloride, which the policy does not allow)' : ''}: the ${amountText(s.t, 'Ca', need)} of calcium cannot be added.`,
     source: allowed.source,
     proposal: {
-      text: `Calcium ${amountText(s.t, 'Ca', ctx.baseline.Ca)} (nothing added) until a calcium stock the policy allows is in the catalog${chlorideHeld ? ', or a policy that lists "chloride" in compounding.calciumSalts' : ''}. ${CONFIRM}`,
+      text: `Calcium ${proposedText(s.t, 'Ca', ctx.baseline.Ca, 'up')} (nothing added) until a calcium stock the policy allows is in the catalog${chlorideHeld ? ', or a policy that lists "chloride" in compounding.calciumSalts' : ''}. ${CONFIRM}`,
       change: changeOf('Ca', inOrderTerms(s.t, ctx.baseline.Ca, 'up')),
     },
   });
@@ -247,7 +247,7 @@ function allocateMagnesium(s: State, ctx: AllocationContext): void {
     code: 'no-stock', severity: 'block', ion: 'Mg', path: 'ions.Mg',
     message: `The catalog holds no magnesium sulfate stock: the ${amountText(s.t, 'Mg', need)} of magnesium cannot be added.`,
     source: ARITHMETIC,
-    proposal: { text: `Magnesium ${amountText(s.t, 'Mg', ctx.baseline.Mg)} (nothing added) until a magnesium sulfate stock is in the catalog. ${CONFIRM}`, change: changeOf('Mg', inOrderTerms(s.t, ctx.baseline.Mg, 'up')) },
+    proposal: { text: `Magnesium ${proposedText(s.t, 'Mg', ctx.baseline.Mg, 'up')} (nothing added) until a magnesium sulfate stock is in the catalog. ${CONFIRM}`, change: changeOf('Mg', inOrderTerms(s.t, ctx.baseline.Mg, 'up')) },
   });
   s.t.Mg = ctx.baseline.Mg;
 }
@@ -299,7 +299,7 @@ function planAnions(t: IonTargets, S: D, Cl0: D, Ac0: D, sources: { Cl: string; 
           problem: {
             code: 'acetate-below-other-lines', severity: 'block', ion: 'acetate', path: 'ions.anions.acetate',
             message: `Acetate ordered ${at('acetate', a.mEq)} is below the ${at('acetate', Ac0)} the other lines already deliver (${sources.acetate}).`,
-            proposal: { text: `Acetate ${at('acetate', Ac0)}: every sodium and potassium salt as chloride. ${CONFIRM}`, change: { anions: { acetate: inOrderTerms(t, Ac0, 'up') } } },
+            proposal: { text: `Acetate ${proposedText(t, 'acetate', Ac0, 'up')}: every sodium and potassium salt as chloride. ${CONFIRM}`, change: { anions: { acetate: inOrderTerms(t, Ac0, 'up') } } },
           },
         };
       }
@@ -310,7 +310,7 @@ function planAnions(t: IonTargets, S: D, Cl0: D, Ac0: D, sources: { Cl: string; 
           problem: {
             code: 'acetate-above-cations', severity: 'block', ion: 'acetate', path: 'ions.anions.acetate',
             message: `Acetate ordered ${at('acetate', a.mEq)} is more than the cations allow: the other lines bring ${at('acetate', Ac0)} and the sodium and potassium left for chloride or acetate salts carry at most ${fmt(S, 2)} mEq, so at most ${at('acetate', most)}.`,
-            proposal: { text: `Acetate ${at('acetate', most)}: every sodium and potassium salt as acetate; or more sodium or potassium. ${CONFIRM}`, change: { anions: { acetate: inOrderTerms(t, most, 'down') } } },
+            proposal: { text: `Acetate ${proposedText(t, 'acetate', most, 'down')}: every sodium and potassium salt as acetate; or more sodium or potassium. ${CONFIRM}`, change: { anions: { acetate: inOrderTerms(t, most, 'down') } } },
           },
         };
       }
@@ -324,7 +324,7 @@ function planAnions(t: IonTargets, S: D, Cl0: D, Ac0: D, sources: { Cl: string; 
           problem: {
             code: 'chloride-below-other-lines', severity: 'block', ion: 'Cl', path: 'ions.anions.chloride',
             message: `Chloride ordered ${at('Cl', a.mEq)} is below the ${at('Cl', Cl0)} the other lines already deliver (${sources.Cl}).`,
-            proposal: { text: `Chloride ${at('Cl', Cl0)}: every sodium and potassium salt as acetate. ${CONFIRM}`, change: { anions: { chloride: inOrderTerms(t, Cl0, 'up') } } },
+            proposal: { text: `Chloride ${proposedText(t, 'Cl', Cl0, 'up')}: every sodium and potassium salt as acetate. ${CONFIRM}`, change: { anions: { chloride: inOrderTerms(t, Cl0, 'up') } } },
           },
         };
       }
@@ -335,7 +335,7 @@ function planAnions(t: IonTargets, S: D, Cl0: D, Ac0: D, sources: { Cl: string; 
           problem: {
             code: 'chloride-above-cations', severity: 'block', ion: 'Cl', path: 'ions.anions.chloride',
             message: `Chloride ordered ${at('Cl', a.mEq)} is more than the cations allow: the other lines bring ${at('Cl', Cl0)} and the sodium and potassium left for chloride or acetate salts carry at most ${fmt(S, 2)} mEq, so at most ${at('Cl', most)}.`,
-            proposal: { text: `Chloride ${at('Cl', most)}: every sodium and potassium salt as chloride; or more sodium or potassium. ${CONFIRM}`, change: { anions: { chloride: inOrderTerms(t, most, 'down') } } },
+            proposal: { text: `Chloride ${proposedText(t, 'Cl', most, 'down')}: every sodium and potassium salt as chloride; or more sodium or potassium. ${CONFIRM}`, change: { anions: { chloride: inOrderTerms(t, most, 'down') } } },
           },
         };
       }
@@ -373,7 +373,7 @@ function allocateMonovalent(s: State, ctx: AllocationContext): void {
         code: 'no-stock', severity: 'block', ion: c, path: `ions.${c}`,
         message: `The catalog holds no ${label} chloride or ${label} acetate stock: ${amountText(s.t, c, rem[c])} of ${label} cannot be added.`,
         source: ARITHMETIC,
-        proposal: { text: `${capital(label)} ${amountText(s.t, c, without)} (what the other lines and the phosphate salt bring). ${CONFIRM}`, change: changeOf(c, inOrderTerms(s.t, without, 'up')) },
+        proposal: { text: `${capital(label)} ${proposedText(s.t, c, without, 'up')} (what the other lines and the phosphate salt bring). ${CONFIRM}`, change: changeOf(c, inOrderTerms(s.t, without, 'up')) },
       });
       s.t[c] = without;
       rem[c] = ZERO;

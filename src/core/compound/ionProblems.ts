@@ -48,6 +48,13 @@ export function amountText(t: IonTargets, ion: IonKey, perBag: D): string {
   return t.per === 'kg' ? `${base} (${fmt(perBag.div(t.weightKg), 3)} ${unit}/kg)` : base;
 }
 
+/** A proposed amount as the order would write it: "7.5 mEq", or "1.363 mmol/kg (2.04 mmol per bag)". */
+export function proposedText(t: IonTargets, ion: IonKey, perBag: D, direction: 'up' | 'down'): string {
+  const unit = ION_INFO[ion].unit;
+  const v = inOrderTerms(t, perBag, direction);
+  return t.per === 'kg' ? `${v} ${unit}/kg (${fmt(perBag, 2)} ${unit} per bag)` : `${v} ${unit}`;
+}
+
 /**
  * A per-bag amount in the order's own terms (0.01 per day, 0.001 per kg), for a proposal's changed
  * field. `up` for a least amount, `down` for a most, so that the rounded proposal stays feasible.

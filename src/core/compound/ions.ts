@@ -174,9 +174,9 @@ export function targetsToJson(t: IonTargets): IonsJson {
     case 'acetate-amount': anions = { acetate: show(a.mEq) }; break;
     case 'chloride-amount': anions = { chloride: show(a.mEq) }; break;
   }
-  const out: IonsJson = { per: t.per, phosphateSalt: t.phosphateSalt, anions };
+  const out: Partial<IonsJson> = { per: t.per };
   for (const k of ORDERED_IONS) if (t.given[k]) out[k] = show(t[k]);
-  return out;
+  return { ...out, per: t.per, phosphateSalt: t.phosphateSalt, anions };
 }
 
 /** Display name of an ion with its unit, e.g. "sodium (mEq)". */
