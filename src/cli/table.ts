@@ -1,7 +1,7 @@
 import type { Report } from '../core/report.ts';
 
 /** Left- or right-aligned columns of plain text. */
-function columns(rows: string[][], right: boolean[]): string[] {
+export function columns(rows: string[][], right: boolean[]): string[] {
   const widths = rows[0]?.map((_, c) => Math.max(...rows.map((r) => (r[c] ?? '').length))) ?? [];
   return rows.map((r) => r.map((cell, c) => (right[c] ? cell.padStart(widths[c] ?? 0) : cell.padEnd(widths[c] ?? 0))).join('  ').trimEnd());
 }

@@ -6,6 +6,8 @@ import { toReport, type Report } from './report.ts';
 import type { Catalog } from './catalog.ts';
 import type { Policy } from './policy.ts';
 import type { Result } from './problems.ts';
+import { compoundOrder, hasIons } from './compound/compoundOrder.ts';
+import { withIonFindings } from './compound/ionFindings.ts';
 
 /** Everything the engine knows about one bag. */
 export interface Evaluation {
@@ -24,9 +26,12 @@ export function evaluateOrder(order: Order, catalog: Catalog, policy: Policy): E
   return { order, bag, findings, verdict, report: toReport(bag, findings, verdict, catalog, policy) };
 }
 
-/** Validate an order file against the catalog, then evaluate it; invalid input returns its problems. */
+/** Validate an order file against the catalog (allocating its ion block, if any), then evaluate it; invalid input returns its problems. */
 export function checkOrder(input: unknown, catalog: Catalog, policy: Policy): Result<Evaluation> {
   const order = parseOrder(input, catalog);
   if (!order.ok) return order;
-  return { ok: true, value: evaluateOrder(order.value, catalog, policy) };
+  if (!hasIons(order.value)) return { ok: true, value: evaluateOrder(order.value, catalog, policy) };
+  // An ion order: allocate its electrolyte lines, then check the bag they make.
+  const compounded = compoundOrder(order.value, catalog, policy);
+  return { ok: true, value: withIonFindings(evaluateOrder(compounded.compounded, catalog, policy), compounded, catalog, policy) };
 }

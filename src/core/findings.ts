@@ -8,7 +8,8 @@ import type { Policy } from './policy.ts';
 export type FindingCode =
   | 'osmolarity-peripheral' | 'dextrose-peripheral' | 'potassium-peripheral' | 'calcium-phosphate'
   | 'tna-stability' | 'gir' | 'dose-range' | 'aluminum' | 'volume-overflow' | 'volume-shortfall'
-  | 'missing-label-osmolarity' | 'empty-bag';
+  | 'missing-label-osmolarity' | 'empty-bag'
+  | 'ion-order' | 'measurable-volume';
 
 /** What a check found: severity, the value against its limit, why, and where the limit comes from. */
 export interface Finding {
