@@ -8,6 +8,7 @@ import type { Finding, Verdict } from './findings.ts';
 import { AGE_GROUPS, ROUTES } from './order.ts';
 import { as, mmolToMEq } from './units.ts';
 import { predictedOsmolalityField, predictedOsmolalityReportSchema } from './compute/osmolality.ts';
+import { suggestionReportSchema } from './solve/report.ts';
 
 const num = z.number().refine(Number.isFinite, 'must be a finite number');
 const speciesRecord = z.record(z.enum(SPECIES_IDS), num);
@@ -88,6 +89,7 @@ export const reportSchema = z.object({
     fields: z.array(z.string()),
   })),
   verdict: z.enum(['pass', 'warn', 'block']),
+  suggestions: z.array(suggestionReportSchema).optional(),
 });
 export type Report = z.infer<typeof reportSchema>;
 

@@ -19,7 +19,7 @@ export function readCurve(curve: Pick<SolubilityCurve, 'points'>, calciumMEqPerL
   const first = points[0];
   const last = points[points.length - 1];
   if (!first || !last) throw new Error('a solubility curve needs points');
-  if (calciumMEqPerL.lte(first.calciumMEqPerL)) return { where: 'below-first-point', maxPhosphateMmolPerL: first.maxPhosphateMmolPerL };
+  if (calciumMEqPerL.lt(first.calciumMEqPerL)) return { where: 'below-first-point', maxPhosphateMmolPerL: first.maxPhosphateMmolPerL };
   if (calciumMEqPerL.gt(last.calciumMEqPerL)) return { where: 'beyond-last-point', lastCalciumMEqPerL: last.calciumMEqPerL };
   for (let i = 1; i < points.length; i++) {
     const a = points[i - 1];
