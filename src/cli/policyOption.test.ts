@@ -72,5 +72,8 @@ describe('osmocount check --policy', () => {
     const text = out.join('\n');
     expect(text).toContain('WARN tna-stability (dextrose)');
     expect(text).toContain('source: ASPEN 2014');
+    const strict = memoryIo(files);
+    expect(await runCli(['check', 'order.json', '--policy', 'strict.json'], strict.io)).toBe(EXIT.block);
+    expect(strict.out.join('\n')).toContain('PROPOSAL final-volume: Final volume 2120 mL');
   });
 });
