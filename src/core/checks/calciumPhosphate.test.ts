@@ -126,7 +126,7 @@ describe('calcium-phosphate', () => {
     const policy = policyWith((p) => {
       p.solubilityCurves = [
         { id: 'aa10-at-1', aminoAcidProduct: 'amino-acids-10', aminoAcidPercent: 1, points: [{ calciumMEqPerL: 10, maxPhosphateMmolPerL: 5 }, { calciumMEqPerL: 40, maxPhosphateMmolPerL: 1 }], source: 'hand-written test points' },
-        { id: 'aa10-at-2', aminoAcidProduct: 'amino-acids-10', aminoAcidPercent: 2, points: [
+        { id: 'aa10-at-2', aminoAcidProduct: 'amino-acids-10', aminoAcidPercent: 2, temperatureC: 37, hours: 24, points: [
           { calciumMEqPerL: 10, maxPhosphateMmolPerL: 30 }, { calciumMEqPerL: 20, maxPhosphateMmolPerL: 20 }, { calciumMEqPerL: 40, maxPhosphateMmolPerL: 10 },
         ], source: 'hand-written test points' },
       ];
@@ -143,6 +143,7 @@ describe('calcium-phosphate', () => {
       expect(f.message).toContain(severity === 'block' ? `over it by ${margin}` : `margin ${margin}`);
       expect(f.source).toContain('hand-written test points');
       expect(f.source).toContain('ASPEN 2014');
+      expect(f.message).toContain('at 2% amino acids, 37 °C, 24 h');
     });
 
     it('calcium beyond the curve blocks: nothing is shown compatible there', () => {

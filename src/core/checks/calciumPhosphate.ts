@@ -143,7 +143,8 @@ function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, lines
   const p = lv.inorganicPhosphateMmolPerL;
   const ca = lv.calciumMEqPerL;
   const reading = readCurve(curve, ca);
-  const curveName = `the ${curve.id} curve (${only.name} at ${curve.aminoAcidPercent.toString()}% amino acids; ${curve.source})`;
+  const conditions = [curve.temperatureC ? `${curve.temperatureC.toString()} °C` : '', curve.hours ? `${curve.hours.toString()} h` : ''].filter((x) => x !== '').join(', ');
+  const curveName = `the ${curve.id} curve (${only.name} at ${curve.aminoAcidPercent.toString()}% amino acids${conditions ? `, ${conditions}` : ''}; ${curve.source})`;
   const source = `${rule.source}; curve: ${curve.source}`;
   if (reading.where === 'beyond-last-point') {
     return {
