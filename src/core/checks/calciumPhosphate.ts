@@ -132,10 +132,10 @@ function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, lines
   const aaPercent = bag.percent.aminoAcids;
   const curve = curveFor(policy.solubilityCurves, only.id, aaPercent);
   if (!curve) {
-    const any = policy.solubilityCurves.some((c) => c.aminoAcidProduct === only.id);
+    const productHasCurves = policy.solubilityCurves.some((c) => c.aminoAcidProduct === only.id);
     return {
       finding: null,
-      note: any
+      note: productHasCurves
         ? `The policy's curves for ${only.name} start above this bag's ${fmt(aaPercent, 2)}% amino acids: check the published curve.`
         : `No solubility curve for ${only.name} is on file in the policy: check the published curve.`,
     };

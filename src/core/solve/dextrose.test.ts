@@ -97,5 +97,9 @@ describe('dextrose suggestion', () => {
     const s = ev.suggestions.find((x) => x.kind === 'dextrose');
     expect(s?.status).toBe('unavailable');
     expect(s?.message).toContain('Even with no dextrose');
+    const zero = evaluate({ age: 'adult', route: 'peripheral', weightKg: 70, volumeMl: 500, lines: [
+      { product: 'sodium-chloride-4', amount: 250, unit: 'mEq' }, { product: 'dextrose-70', amount: 0, unit: 'g' }, { product: 'sterile-water', fill: true },
+    ] });
+    expect(zero.suggestions.find((x) => x.kind === 'dextrose')?.message).toContain('already at zero');
   });
 });

@@ -59,6 +59,7 @@ export function dextroseSuggestion(current: Checked, policy: Policy, limit: D, e
   const w = order.patient.weightKg;
   const withAmount = (amount: D): Order => ({ ...order, lines: order.lines.map((l) => (l.index === line.index ? { ...line, amount } : l)) });
   const x0 = gramsFor(line, line.amount, w);
+  if (!x0.gt(0)) return unavailable(`The dextrose line is already at zero: lower the amino acids or electrolytes, raise the volume, or use a central line.`);
   const found = crossings(policy, limit, x0, bag, ZERO, computeBag(withAmount(ZERO), policy));
   if (!found || found.some((c) => c.falling)) return unavailable('Lowering dextrose does not lower this bag\'s osmolarity.');
   const exact = D.min(...found.map((c) => c.x));

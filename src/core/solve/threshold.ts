@@ -25,6 +25,7 @@ function totalMOsm(bag: Bag, method: Method): D {
  */
 export function crossings(policy: Policy, limit: D, x0: D, bag0: Bag, x1: D, bag1: Bag): { method: Method; x: D; falling: boolean }[] | null {
   const dx = x1.minus(x0);
+  if (dx.isZero()) return null;
   const out: { method: Method; x: D; falling: boolean }[] = [];
   for (const method of methodsOf(policy)) {
     // f(x) = 1000·T(x) − limit·V(x) is ≤ 0 where the bag passes; it is linear in x.
