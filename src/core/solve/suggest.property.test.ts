@@ -3,6 +3,7 @@ import fc from 'fast-check';
 import { D } from '../decimal.ts';
 import { DEFAULT_CATALOG, DEFAULT_POLICY } from '../../defaults.ts';
 import { evaluateOrder } from '../evaluate.ts';
+import { reportSchema } from '../report.ts';
 import type { Order } from '../order.ts';
 import { orderOf, type OrderSpec } from '../../../test/helpers/orders.ts';
 
@@ -15,6 +16,7 @@ const peripheralOrder = fc.record({
   volumeMl: fc.integer({ min: 100, max: 3000 }),
   fill: fc.boolean(),
   aa: fc.integer({ min: 0, max: 150 }),
+  // 0 g of everything and no fill gives an empty bag: it must still report cleanly.
   dextrose: fc.integer({ min: 0, max: 450 }),
   lipidMl: fc.integer({ min: 0, max: 400 }),
   naMEq: fc.integer({ min: 0, max: 150 }),
@@ -33,11 +35,20 @@ const peripheralOrder = fc.record({
 });
 
 describe('suggest (property)', () => {
+  it('an empty peripheral bag reports cleanly: no figures to screen, nothing to suggest', () => {
+    const e = evaluateOrder(orderOf({ age: 'preterm-neonate', route: 'peripheral', weightKg: 1, lines: [{ product: 'dextrose-50', amount: 0, unit: 'g' }] }), DEFAULT_CATALOG, DEFAULT_POLICY);
+    expect(e.findings.map((f) => f.code)).toEqual(['empty-bag']);
+    expect(e.suggestions).toEqual([]);
+    expect(reportSchema.safeParse(e.report).success).toBe(true);
+  });
+
   it('applying a proposal and re-evaluating never gives a worse osmolarity verdict, and each proposal is the tightest step', () => {
     let proposals = 0;
     fc.assert(fc.property(peripheralOrder, (spec) => {
       const order = orderOf(spec);
       const e = evaluateOrder(order, DEFAULT_CATALOG, DEFAULT_POLICY);
+      // Every figure in the report, suggestions included, is a finite number (the schema refuses NaN and Infinity).
+      expect(reportSchema.safeParse(e.report).success).toBe(true);
       const failedBefore = e.findings.some((f) => f.code === 'osmolarity-peripheral');
       if (!failedBefore) expect(e.suggestions).toEqual([]);
       for (const s of e.suggestions) {
