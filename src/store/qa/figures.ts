@@ -1,6 +1,5 @@
 // What a QA entry keeps of the bag's report: its formula type and every calculated figure that a
 // measured osmolality can be compared with.
-import { z } from 'zod';
 import type { AgeGroup } from '../../core/order.ts';
 import type { Report } from '../../core/report.ts';
 import type { AgeBand, CalculatedFigure, System } from '../types.ts';
@@ -20,23 +19,15 @@ export function systemOf(report: Pick<Report, 'lines'>): System {
   return report.lines.some((l) => l.role === 'lipid' && l.volumeMl > 0) ? '3-in-1' : '2-in-1';
 }
 
-// `information.predictedOsmolality` is optional in the report (added by a later engine); read it
-// through its own schema so a report without it, or with another shape, simply has no prediction.
-const predictedSchema = z.object({
-  predictedOsmolality: z.object({
-    estimates: z.array(z.object({ method: z.string(), label: z.string(), value: z.number().refine(Number.isFinite), unit: z.string() })),
-  }),
-});
-
 /** The calculated figures of a report: particle count, label sum, and each predicted osmolality. */
 export function calculatedFigures(report: Pick<Report, 'osmolarity' | 'information'>): CalculatedFigure[] {
   const out: CalculatedFigure[] = [
     { key: 'particle', label: 'Particle count', value: report.osmolarity.particle, unit: 'mOsm/L' },
     { key: 'labelSum', label: 'Label sum', value: report.osmolarity.labelSum, unit: 'mOsm/L' },
   ];
-  const predicted = predictedSchema.safeParse(report.information);
-  if (predicted.success) {
-    for (const e of predicted.data.predictedOsmolality.estimates) out.push({ key: `predicted:${e.method}`, label: `Predicted: ${e.label}`, value: e.value, unit: e.unit });
+  // information.predictedOsmolality is absent for an empty bag.
+  for (const e of report.information.predictedOsmolality?.estimates ?? []) {
+    out.push({ key: `predicted:${e.method}`, label: `Predicted: ${e.label}`, value: e.value, unit: e.unit });
   }
   return out;
 }

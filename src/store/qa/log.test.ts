@@ -37,9 +37,12 @@ describe('the osmolality QA log', () => {
     expect(r.ok).toBe(true);
     if (!r.ok) return;
     expect(r.value).toMatchObject({ orderId: 'MPH-2026-0412', version: 1, measured: '952', ageBand: 'adult', system: '3-in-1', recordedBy: 'AB' });
-    expect(r.value.calculated.slice(0, 2)).toEqual([
+    const predicted = engine.value.report.information.predictedOsmolality?.estimates ?? [];
+    expect(predicted.length).toBeGreaterThan(0);
+    expect(r.value.calculated).toEqual([
       { key: 'particle', label: 'Particle count', value: engine.value.report.osmolarity.particle, unit: 'mOsm/L' },
       { key: 'labelSum', label: 'Label sum', value: engine.value.report.osmolarity.labelSum, unit: 'mOsm/L' },
+      ...predicted.map((e) => ({ key: `predicted:${e.method}`, label: `Predicted: ${e.label}`, value: e.value, unit: 'mOsm/kg' })),
     ]);
     const neo = await savedDemo(2);
     const nr = await reportOfVersion(store, neo, env);

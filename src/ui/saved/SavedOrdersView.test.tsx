@@ -21,7 +21,8 @@ async function seed() {
   const store = r.value;
   const { env } = await loadEnv(store);
   const keys: string[] = [];
-  for (const d of DEMO_ORDERS) {
+  // the three demo orders of the invented scenario: MPH-2026-0412, -0413 and -0414
+  for (const d of DEMO_ORDERS.filter((o) => ['adult-peripheral', 'adult-central', 'preterm-neonate'].includes(o.key))) {
     const s = await saveVersion(store, env, { orderKey: null, file: structuredClone(d.file) as JsonObject, by: 'AB' });
     if (s.ok) keys.push(s.value.record.key);
   }
