@@ -148,6 +148,14 @@ export function diffOrders(older: JsonObject, newer: JsonObject): Change[] {
   return changes;
 }
 
+/**
+ * The same order for a pharmacist: no field differs (numbers by value, so "2000" is 2000). Saving or
+ * importing such a file adds no version.
+ */
+export function sameOrder(a: JsonObject, b: JsonObject): boolean {
+  return diffOrders(a, b).length === 0;
+}
+
 /** One entry of an order's history: a version, who saved and signed it, and what it changed. */
 export interface HistoryEntry {
   version: OrderVersion;

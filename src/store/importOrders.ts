@@ -4,7 +4,7 @@
 import type { Catalog } from '../core/catalog.ts';
 import type { Problem, Result } from '../core/problems.ts';
 import { ordersFromText } from '../cli/inputs.ts';
-import { sameContent } from './canonical.ts';
+import { sameOrder } from './diff.ts';
 import { checkAndStamp, type CheckEnv } from './check.ts';
 import { read, write, type Store } from './db.ts';
 import { summaryOf } from './orders.ts';
@@ -79,7 +79,7 @@ export function planImportWith(text: string, ctx: ImportContext): ImportPlan {
     }
     seen.set(id, where);
     const latest = ctx.latestById.get(id);
-    const action = latest === undefined ? 'new' : sameContent(latest, checked.value.file) ? 'unchanged' : 'new-version';
+    const action = latest === undefined ? 'new' : sameOrder(latest, checked.value.file) ? 'unchanged' : 'new-version';
     valid.push({ where, orderId: id, file: checked.value.file, from: checked.value.from, notes: checked.value.notes, action });
   }
   return { valid, invalid };
@@ -132,7 +132,7 @@ export async function commitImport(store: Store, env: CheckEnv, plan: ImportPlan
       const [existing] = await orders.index('orderId').getAll(item.orderId);
       if (existing) {
         const latest = await versions.get([existing.key, existing.latest]);
-        if (latest && sameContent(latest.file, item.file)) { done.unchanged += 1; continue; }
+        if (latest && sameOrder(latest.file, item.file)) { done.unchanged += 1; continue; }
       }
       const key = existing?.key ?? store.newKey();
       const n = (existing?.latest ?? 0) + 1;

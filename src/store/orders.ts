@@ -2,7 +2,7 @@
 // for the next day's bag, and deletion. Versions are append-only: a change after a sign-off (or any
 // change at all) is a new version; only the latest unsigned version can be signed, once.
 import type { Problem, Result } from '../core/problems.ts';
-import { sameContent } from './canonical.ts';
+import { sameOrder } from './diff.ts';
 import { checkAndStamp, type CheckEnv } from './check.ts';
 import { read, write, type Store } from './db.ts';
 import { remember, shippedFile } from './files.ts';
@@ -122,7 +122,7 @@ export async function saveVersion(store: Store, env: CheckEnv, input: SaveInput)
     if (input.orderKey !== null && !existing) return fail<Saved>('(order)', 'this saved order no longer exists (deleted in another tab?)');
     if (existing) {
       const latest = await versions.get([existing.key, existing.latest]);
-      if (latest && sameContent(latest.file, file)) return { ok: true, value: { record: existing, version: latest, created: false, problems } };
+      if (latest && sameOrder(latest.file, file)) return { ok: true, value: { record: existing, version: latest, created: false, problems } };
     }
     const key = existing?.key ?? store.newKey();
     const n = (existing?.latest ?? 0) + 1;

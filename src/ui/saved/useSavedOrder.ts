@@ -3,7 +3,7 @@
 // changed since it was checked. Storage errors are shown, never thrown; the edit on screen stays.
 import { useCallback, useEffect, useRef, useState } from 'react';
 import type { Problem, Result } from '../../core/problems.ts';
-import { sameContent } from '../../store/canonical.ts';
+import { sameOrder } from '../../store/diff.ts';
 import { changedSince, type RefChange } from '../../store/changes.ts';
 import { copyOrder, getOrder, nextOrderId, saveDraft, saveVersion, signOff, allOrders, type SavedOrder } from '../../store/orders.ts';
 import type { JsonObject, OrderVersion } from '../../store/types.ts';
@@ -167,7 +167,7 @@ export function useSavedOrder(initials: string | null): SavedOrderApi {
   return {
     ready: store !== null && env !== null,
     saved, latest,
-    unsaved: current !== null && (latest === null || !sameContent(latest.file, current)),
+    unsaved: current !== null && (latest === null || !sameOrder(latest.file, current)),
     autosave, changes, edited, save, sign, open, detach, forget, copy, suggestId,
   };
 }
