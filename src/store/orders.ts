@@ -126,7 +126,7 @@ export async function saveVersion(store: Store, env: CheckEnv, input: SaveInput)
     }
     const key = existing?.key ?? store.newKey();
     const n = (existing?.latest ?? 0) + 1;
-    const version: OrderVersion = { orderKey: key, n, file, savedAt: at, savedBy: input.by, origin: input.origin ?? 'saved', check: stamp, signOff: null };
+    const version: OrderVersion = { orderKey: key, n, file, savedAt: at, savedBy: input.by?.trim().toUpperCase() || null, origin: input.origin ?? 'saved', check: stamp, signOff: null };
     const record: OrderRecord = {
       key, ...summary,
       createdAt: existing?.createdAt ?? at,

@@ -134,14 +134,14 @@ export const tests = [
     await history.getByText('Version 2', { exact: true }).waitFor();
     const text = await history.innerText();
     ok(/Version 2\s+saved by JMK/.test(text), `who saved version 2: ${text}`);
-    ok(text.includes('Dextrose 70% injection (line 2): amount 150 → 250'), `what changed: ${text}`);
+    ok(text.includes('Dextrose 70% injection, line 2, amount: 150 → 250'), `what changed: ${text}`);
     ok(/Verified by JMK/.test(text), 'version 1 still verified');
     const db = await dumpDb(page);
     equal(db.versions.length, 2, 'two versions stored');
     equal(db.versions[0].signOff.by, 'JMK', 'version 1 locked with its sign-off');
     equal(db.versions[1].signOff, null, 'version 2 not signed');
-    await history.scrollIntoViewIfNeeded();
-    await page.screenshot({ path: `${ARTIFACTS}/store-history.png`, fullPage: true });
+    await page.screenshot({ path: `${ARTIFACTS}/store-order-top.png` });
+    await history.screenshot({ path: `${ARTIFACTS}/store-history.png` });
     clean(problems);
     await context.close();
   }],
@@ -159,7 +159,7 @@ export const tests = [
     await page.getByRole('button', { name: 'Import orders…' }).click();
     const bad = JSON.stringify([{ format: 'osmocount-order', version: 1, id: 'BAD-1', patient: { id: 'P', weightKg: -2, ageGroup: 'adult' }, route: 'sideways', lines: [] }]);
     await page.getByLabel('Order file (JSON, JSON array or NDJSON)').setInputFiles({ name: 'bad.json', mimeType: 'application/json', buffer: Buffer.from(bad) });
-    const invalid = page.getByRole('group', { name: 'Invalid [0]' });
+    const invalid = page.getByRole('group', { name: 'Invalid: Order 1 of the list' });
     await invalid.waitFor();
     const text = await invalid.innerText();
     ok(text.includes('patient.weightKg: must be a number ≥ 0.1 and ≤ 700') && text.includes('route: must be one of'), `problems listed: ${text}`);

@@ -5,6 +5,13 @@ import { readText } from './files.ts';
 import { useSavedWork } from './SavedWorkProvider.tsx';
 import './saved.css';
 
+/** Where an order sits in the file, for people: "order 2 of the list", "line 4", "the file". */
+function placeText(where: string): string {
+  const m = /^\[(\d+)\]$/.exec(where);
+  if (m) return `Order ${Number(m[1]) + 1} of the list`;
+  return where === '' ? 'The file' : where.replace(/^line/, 'Line');
+}
+
 const ACTION_TEXT = { new: 'new order', 'new-version': 'new version of the saved order', unchanged: 'same as the saved order (nothing to add)' } as const;
 
 /**
@@ -56,7 +63,7 @@ export function ImportDialog({ by, onClose }: { by: string | null; onClose(): vo
           <input type="file" accept=".json,.ndjson,.jsonl,application/json" onChange={(e) => void pick(e.target.files?.[0])} />
         </label>
       </div>
-      <label>
+      <label className="block">
         or paste the file’s text
         <textarea aria-label="Order file text" value={text} onChange={(e) => { setText(e.target.value); setName(null); setPlan(null); }} />
       </label>
@@ -69,14 +76,15 @@ export function ImportDialog({ by, onClose }: { by: string | null; onClose(): vo
           <p><strong>{name ?? 'The pasted text'}: {plan.valid.length} order{plan.valid.length === 1 ? '' : 's'} can be imported, {plan.invalid.length} cannot.</strong></p>
           {plan.valid.length > 0 ? <ul className="valid-list">{plan.valid.map((v) => <li key={v.where + v.orderId}>{v.orderId}: {ACTION_TEXT[v.action]}{v.from !== 'v1' ? ` (read from the ${v.from === 'v0' ? 'pre-release' : 'unversioned'} layout)` : ''}</li>)}</ul> : null}
           {plan.invalid.map((x, i) => (
-            <div className="invalid" key={i} role="group" aria-label={`Invalid ${x.where || 'file'}`}>
-              <strong>{x.where === '' ? 'The file' : `Order ${x.where}`}{x.orderId ? ` (${x.orderId})` : ''} cannot be imported:</strong>
+            <div className="invalid" key={i} role="group" aria-label={`Invalid: ${placeText(x.where)}`}>
+              <strong>{placeText(x.where)}{x.orderId ? ` (${x.orderId})` : ''} cannot be imported:</strong>
               <ul>{x.problems.map((p, j) => <li key={j}>{formatProblem(p)}</li>)}</ul>
             </div>
           ))}
           {partial ? (
             <label className="confirm">
-              <span><input type="checkbox" checked={partialOk} onChange={(e) => setPartialOk(e.target.checked)} /> Import the {plan.valid.length} valid order{plan.valid.length === 1 ? '' : 's'} and leave out the {plan.invalid.length} invalid one{plan.invalid.length === 1 ? '' : 's'}</span>
+              <input type="checkbox" checked={partialOk} onChange={(e) => setPartialOk(e.target.checked)} />
+              <span>Import the {plan.valid.length} valid order{plan.valid.length === 1 ? '' : 's'} and leave out the {plan.invalid.length} invalid one{plan.invalid.length === 1 ? '' : 's'}</span>
             </label>
           ) : null}
           {plan.valid.length > 0 ? (

@@ -42,10 +42,10 @@ export function OpenOrderBar({ api, file, verdict, initials, onInitials }: Props
         <span className={`autosave${api.autosave.kind === 'failed' ? ' failed' : ''}`} data-testid="autosave-state">{autosaveText(api.autosave)}</span>
         <label>
           Your initials
-          <input type="text" value={initials} maxLength={5} size={5} onChange={(e) => onInitials(e.target.value)} />
+          <input type="text" className="initials" value={initials} maxLength={5} size={5} autoComplete="off" onChange={(e) => onInitials(e.target.value)} />
         </label>
         <button type="button" disabled={!api.ready || (!api.unsaved && latest !== null)} onClick={() => void save()}>
-          {latest ? `Save as version ${latest.n + (api.unsaved ? 1 : 0)}` : 'Save order'}
+          {!latest ? 'Save order' : api.unsaved ? `Save as version ${latest.n + 1}` : `Saved as version ${latest.n}`}
         </button>
         <SignOff latest={latest} unsaved={api.unsaved} verdict={verdict} initials={initials} onSign={() => api.sign(file, initials)} />
       </div>

@@ -53,8 +53,8 @@ export function QaReadingsTable({ rows, onRemove }: { rows: readonly ComparisonR
           const byKey = new Map(r.figures.map((f) => [f.key, f]));
           return (
             <tr key={r.entry.id}>
-              <td>{r.entry.measuredOn}</td>
-              <th scope="row">{r.entry.orderId} v{r.entry.version}</th>
+              <td className="nowrap">{r.entry.measuredOn}</td>
+              <th scope="row" className="nowrap">{r.entry.orderId} v{r.entry.version}</th>
               <td>{BAND_TEXT[r.entry.ageBand]} {r.entry.system}</td>
               <td className="num">{show(r.measured, 1)}</td>
               {keys.map(([k]) => {

@@ -104,8 +104,8 @@ describe('the saved-orders view', () => {
     await user.click(text);
     await user.paste(JSON.stringify([good, bad]));
     await user.click(within(dialog).getByRole('button', { name: 'Check the file' }));
-    const invalid = await within(dialog).findByRole('group', { name: 'Invalid [1]' });
-    expect(invalid).toHaveTextContent('Order [1] (MPH-2026-0501) cannot be imported:');
+    const invalid = await within(dialog).findByRole('group', { name: 'Invalid: Order 2 of the list' });
+    expect(invalid).toHaveTextContent('Order 2 of the list (MPH-2026-0501) cannot be imported:');
     expect(invalid).toHaveTextContent('hours: must be a number ≥ 1 and ≤ 72');
     expect(invalid).toHaveTextContent('route: must be one of "peripheral", "central"');
     const importButton = within(dialog).getByRole('button', { name: 'Import 1 order' });

@@ -45,7 +45,8 @@ export function SignOff({ latest, unsaved, verdict, initials, onSign }: Props) {
     <div className="sign-off" aria-label="Sign-off">
       {verdict === 'block' ? (
         <label className="confirm">
-          <span><input type="checkbox" checked={confirmHold} onChange={(e) => setConfirmHold(e.target.checked)} /> The checks hold this bag. I reviewed every finding and sign under local policy.</span>
+          <input type="checkbox" checked={confirmHold} onChange={(e) => setConfirmHold(e.target.checked)} />
+          <span>The checks hold this bag. I reviewed every finding and sign under local policy.</span>
         </label>
       ) : null}
       <button type="button" className="primary" disabled={busy || verdict === null || initials.trim() === '' || blocked} onClick={() => void sign()}>

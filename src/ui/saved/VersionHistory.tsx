@@ -21,7 +21,7 @@ function ChangeItem({ change, catalog }: { change: Change; catalog: Catalog }) {
       ? <li>Added line {change.lineTo}: {name}, {to}</li>
       : <li>Removed line {change.lineFrom}: {name}, {from}</li>;
   }
-  const where = change.product !== undefined ? `${productName(catalog, change.product)} (line ${change.lineTo}): ${change.field}` : change.field;
+  const where = change.product !== undefined ? `${productName(catalog, change.product)}, line ${change.lineTo}, ${change.field}` : change.field;
   if (change.kind === 'added') return <li>{where}: set to {to}</li>;
   if (change.kind === 'removed') return <li>{where}: {from} removed</li>;
   return <li>{where}: {from} → {to}</li>;

@@ -5,7 +5,7 @@ import { useCallback, useEffect, useRef, useState } from 'react';
 import type { Problem, Result } from '../../core/problems.ts';
 import { sameOrder } from '../../store/diff.ts';
 import { changedSince, type RefChange } from '../../store/changes.ts';
-import { copyOrder, getOrder, nextOrderId, saveDraft, saveVersion, signOff, allOrders, type SavedOrder } from '../../store/orders.ts';
+import { copyOrder, getOrder, nextOrderId, normaliseInitials, saveDraft, saveVersion, signOff, allOrders, type SavedOrder } from '../../store/orders.ts';
 import type { JsonObject, OrderVersion } from '../../store/types.ts';
 import { useSavedWork } from './SavedWorkProvider.tsx';
 
@@ -17,6 +17,8 @@ export interface SavedOrderApi {
   /** The saved order the open one belongs to (null: never saved). */
   saved: SavedOrder | null;
   latest: OrderVersion | null;
+  /** The order file as last edited, opened or restored (null before any). */
+  current: JsonObject | null;
   /** The file on screen differs from the latest saved version. */
   unsaved: boolean;
   autosave: AutosaveState;
@@ -119,9 +121,11 @@ export function useSavedOrder(initials: string | null): SavedOrderApi {
 
   const sign = useCallback(async (file: JsonObject, who: string): Promise<Result<OrderVersion>> => {
     if (!store || !env) return notReady();
-    const s = await save(file, who);
+    const initials = normaliseInitials(who);
+    if (!initials.ok) return initials;
+    const s = await save(file, initials.value);
     if (!s.ok) return s;
-    const r = await signOff(store, env, s.value.orderKey, s.value.n, who);
+    const r = await signOff(store, env, s.value.orderKey, s.value.n, initials.value);
     if (!r.ok && r.problems.some((p) => p.path === '(storage)')) report(r.problems);
     await reloadSaved(s.value.orderKey);
     touch();
@@ -166,7 +170,7 @@ export function useSavedOrder(initials: string | null): SavedOrderApi {
 
   return {
     ready: store !== null && env !== null,
-    saved, latest,
+    saved, latest, current,
     unsaved: current !== null && (latest === null || !sameOrder(latest.file, current)),
     autosave, changes, edited, save, sign, open, detach, forget, copy, suggestId,
   };
