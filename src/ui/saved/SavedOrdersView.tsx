@@ -14,6 +14,20 @@ import { useSavedWork } from './SavedWorkProvider.tsx';
 import type { SavedOrderApi } from './useSavedOrder.ts';
 import './saved.css';
 
+function megabytes(bytes: number): string {
+  return `${(bytes / 1_000_000).toFixed(1)} MB`;
+}
+
+/** Where the saved work lives and whether the browser may clear it. */
+function StorageLine() {
+  const { storage } = useSavedWork();
+  const used = storage.usage !== null && storage.quota !== null ? ` Using ${megabytes(storage.usage)} of the ${megabytes(storage.quota)} this browser allows the site.` : '';
+  const kept = storage.persisted === true
+    ? 'This browser keeps the saved work even when its disk runs short.'
+    : 'This browser may clear saved work when its disk runs short: export orders you need to keep.';
+  return <p className="count" data-testid="storage-line">Orders are kept in this browser on this workstation only. {kept}{used}</p>;
+}
+
 type Pending = { kind: 'copy'; record: OrderRecord; id: string } | { kind: 'delete'; record: OrderRecord } | null;
 
 /** Saved orders: search, open, copy for the next bag, delete (confirmed), export and import. */
@@ -80,6 +94,7 @@ export function SavedOrdersView({ api, by, onOpened }: { api: SavedOrderApi; by:
           onOpen={(key) => void open(key)} onCopy={(r) => void startCopy(r)} onDelete={(record) => setPending({ kind: 'delete', record })}
         />
       ) : orders ? <p className="none">{total === 0 ? 'No order is saved in this browser yet.' : 'No saved order matches.'}</p> : null}
+      <StorageLine />
     </section>
   );
 }

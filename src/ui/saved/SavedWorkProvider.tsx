@@ -27,9 +27,34 @@ export interface SavedWork {
   saveRef(kind: RefKind, file: unknown, origin: FileOrigin): Promise<Result<ActiveFile>>;
   /** Back to the shipped catalog or policy; reloads `env`. */
   resetRef(kind: RefKind): Promise<Result<void>>;
+  /** Whether the browser promised not to clear this site's storage under pressure, and how much is used. */
+  storage: StorageInfo;
   /** Bumped on every change to saved orders, so lists refresh. */
   revision: number;
   touch(): void;
+}
+
+/** What the browser says about this site's storage (null: it does not say). */
+export interface StorageInfo {
+  persisted: boolean | null;
+  usage: number | null;
+  quota: number | null;
+}
+
+/**
+ * Ask the browser to keep this site's storage when the disk runs short (StorageManager.persist(); a
+ * browser may decline), and read how much is used. Local only: no request leaves the machine.
+ */
+async function storageInfo(): Promise<StorageInfo> {
+  const manager = typeof navigator === 'undefined' ? undefined : navigator.storage;
+  if (!manager) return { persisted: null, usage: null, quota: null };
+  try {
+    const persisted = (await manager.persisted?.()) || (await manager.persist?.()) || false;
+    const estimate = await manager.estimate?.();
+    return { persisted, usage: estimate?.usage ?? null, quota: estimate?.quota ?? null };
+  } catch {
+    return { persisted: null, usage: null, quota: null };
+  }
 }
 
 const SavedWorkContext = createContext<SavedWork | null>(null);
@@ -43,6 +68,7 @@ export function SavedWorkProvider({ dbName = DB_NAME, children }: { dbName?: str
   const [restored, setRestored] = useState<Draft | null>(null);
   const [problems, setProblems] = useState<Problem[]>([]);
   const [revision, setRevision] = useState(0);
+  const [storage, setStorage] = useState<StorageInfo>({ persisted: null, usage: null, quota: null });
 
   useEffect(() => {
     let live = true;
@@ -61,6 +87,8 @@ export function SavedWorkProvider({ dbName = DB_NAME, children }: { dbName?: str
       setProblems([...loaded.problems, ...(draft.ok ? [] : draft.problems)]);
       setStore(r.value);
       setStatus('ready');
+      const info = await storageInfo();
+      if (live) setStorage(info);
     })();
     return () => {
       live = false;
@@ -70,7 +98,10 @@ export function SavedWorkProvider({ dbName = DB_NAME, children }: { dbName?: str
 
   const report = useCallback((next: Problem[]) => setProblems(next), []);
   const dismiss = useCallback(() => setProblems([]), []);
-  const touch = useCallback(() => setRevision((n) => n + 1), []);
+  const touch = useCallback(() => {
+    setRevision((n) => n + 1);
+    void storageInfo().then(setStorage);
+  }, []);
   const reload = useCallback(async (s: Store) => {
     const loaded = await loadEnv(s);
     setEnv(loaded.env);
@@ -91,8 +122,8 @@ export function SavedWorkProvider({ dbName = DB_NAME, children }: { dbName?: str
   }, [store, reload]);
 
   const value = useMemo<SavedWork>(
-    () => ({ status, store, env, refFiles, restored, problems, report, dismiss, saveRef, resetRef, revision, touch }),
-    [status, store, env, refFiles, restored, problems, report, dismiss, saveRef, resetRef, revision, touch],
+    () => ({ status, store, env, refFiles, restored, problems, report, dismiss, saveRef, resetRef, storage, revision, touch }),
+    [status, store, env, refFiles, restored, problems, report, dismiss, saveRef, resetRef, storage, revision, touch],
   );
   return <SavedWorkContext.Provider value={value}>{children}</SavedWorkContext.Provider>;
 }
