@@ -68,13 +68,17 @@ function RefFile({ kind }: { kind: RefKind }) {
   );
 }
 
-/** The catalog and policy this browser checks orders against: where they came from, export, import, reset. */
-export function RefFilesPanel() {
+/**
+ * The catalog and policy this browser checks orders against: where they came from, export, import,
+ * reset. `only` shows one of them (beside the catalog or policy view).
+ */
+export function RefFilesPanel({ only }: { only?: RefKind }) {
+  const title = only === 'catalog' ? 'Catalog in this browser' : only === 'policy' ? 'Policy in this browser' : 'Catalog and policy in this browser';
   return (
-    <section className="panel saved ref-files" aria-label="Catalog and policy in this browser">
-      <h2>Catalog and policy in this browser</h2>
-      <RefFile kind="catalog" />
-      <RefFile kind="policy" />
+    <section className="panel saved ref-files" aria-label={title}>
+      <h2>{title}</h2>
+      {only !== 'policy' ? <RefFile kind="catalog" /> : null}
+      {only !== 'catalog' ? <RefFile kind="policy" /> : null}
     </section>
   );
 }

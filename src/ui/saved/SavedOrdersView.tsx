@@ -3,7 +3,7 @@ import { formatProblem, type Problem } from '../../core/problems.ts';
 import { exportOrders, type ExportLayout } from '../../store/importOrders.ts';
 import { deleteOrder } from '../../store/orders.ts';
 import type { OrderQuery } from '../../store/search.ts';
-import type { OrderRecord } from '../../store/types.ts';
+import type { JsonObject, OrderRecord } from '../../store/types.ts';
 import { ConfirmBox } from './ConfirmBox.tsx';
 import { downloadText } from './files.ts';
 import { ImportDialog } from './ImportDialog.tsx';
@@ -31,7 +31,7 @@ function StorageLine() {
 type Pending = { kind: 'copy'; record: OrderRecord; id: string } | { kind: 'delete'; record: OrderRecord } | null;
 
 /** Saved orders: search, open, copy for the next bag, delete (confirmed), export and import. */
-export function SavedOrdersView({ api, by, onOpened }: { api: SavedOrderApi; by: string | null; onOpened(): void }) {
+export function SavedOrdersView({ api, by, onOpened }: { api: SavedOrderApi; by: string | null; onOpened(file: JsonObject): void }) {
   const { store, touch, report } = useSavedWork();
   const [query, setQuery] = useState<OrderQuery>({});
   const { orders, total } = useOrderList(query);
@@ -40,12 +40,12 @@ export function SavedOrdersView({ api, by, onOpened }: { api: SavedOrderApi; by:
   const [importing, setImporting] = useState(false);
   const [problems, setProblems] = useState<Problem[]>([]);
 
-  const open = async (key: string) => { if (await api.open(key)) onOpened(); };
+  const open = async (key: string) => { const file = await api.open(key); if (file) onOpened(file); };
   const startCopy = async (record: OrderRecord) => setPending({ kind: 'copy', record, id: await api.suggestId(record.orderId) });
   const copy = async (record: OrderRecord, id: string) => {
     const r = await api.copy(record.key, id, by);
     setProblems(r.ok ? [] : r.problems);
-    if (r.ok) { setPending(null); onOpened(); }
+    if (r.ok) { setPending(null); onOpened(r.value); }
   };
   const remove = async (record: OrderRecord) => {
     if (!store) return;

@@ -32,8 +32,11 @@ export interface SavedOrderApi {
   sign(file: JsonObject, initials: string): Promise<Result<OrderVersion>>;
   /** Open a saved order: returns its latest file for the workspace to load. */
   open(orderKey: string): Promise<JsonObject | null>;
-  /** The workspace opened an unsaved order (new, demo, file): detach from any saved one. */
-  detach(file: JsonObject): void;
+  /**
+   * The workspace opened an unsaved order (new, demo, file): detach from any saved one. With `file`, it
+   * is also kept as the draft (the workspace's autosave effect does that itself).
+   */
+  detach(file?: JsonObject): void;
   /** A saved order was deleted: if it is the open one, the order on screen becomes unsaved. */
   forget(orderKey: string): void;
   /** Copy a saved order to a new one and open it; returns the copy's file. */
@@ -139,11 +142,11 @@ export function useSavedOrder(initials: string | null): SavedOrderApi {
     return file;
   }, [reloadSaved, edited]);
 
-  const detach = useCallback((file: JsonObject) => {
+  const detach = useCallback((file?: JsonObject) => {
     openKey.current = null;
     baseVersion.current = null;
     setSaved(null);
-    edited(file);
+    if (file) edited(file);
   }, [edited]);
 
   const forget = useCallback((orderKey: string) => {
