@@ -11,6 +11,15 @@ import { ARTIFACTS } from './harness.mjs';
 import { CHROMIUM_ARGS, ensureChromium } from './chromium.mjs';
 
 const DEXTROSE = 'Amount, line 2, Dextrose 70% injection';
+const AXE = readFileSync('node_modules/axe-core/axe.min.js', 'utf8');
+
+/** axe-core over the page: serious or critical WCAG 2.1 A/AA violations fail the test. */
+async function axe(page, where) {
+  await page.evaluate(AXE);
+  const result = await page.evaluate(() => globalThis.axe.run(globalThis.document, { runOnly: { type: 'tag', values: ['wcag2a', 'wcag2aa', 'wcag21a', 'wcag21aa'] } }));
+  const bad = result.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+  if (bad.length > 0) throw new Error(`${where}: ${bad.map((v) => `${v.id}: ${v.help} (${v.nodes.slice(0, 3).map((n) => n.target.join(' ')).join('; ')})`).join('\n')}`);
+}
 
 /** Report every Content-Security-Policy violation as a console error (the harness fails on those). */
 async function watchCsp(page) {
@@ -140,6 +149,7 @@ export const tests = [
     equal(db.versions.length, 2, 'two versions stored');
     equal(db.versions[0].signOff.by, 'JMK', 'version 1 locked with its sign-off');
     equal(db.versions[1].signOff, null, 'version 2 not signed');
+    await axe(page, 'order with the saved bar and history');
     await page.screenshot({ path: `${ARTIFACTS}/store-order-top.png` });
     await history.screenshot({ path: `${ARTIFACTS}/store-history.png` });
     clean(problems);
@@ -164,6 +174,7 @@ export const tests = [
     const text = await invalid.innerText();
     ok(text.includes('patient.weightKg: must be a number ≥ 0.1 and ≤ 700') && text.includes('route: must be one of'), `problems listed: ${text}`);
     await page.getByText('Nothing was imported; the saved orders are unchanged.').waitFor();
+    await axe(page, 'saved orders with the import dialog');
     const after = await dumpDb(page);
     equal(JSON.stringify(after.orders), JSON.stringify(before.orders), 'orders unchanged');
     equal(JSON.stringify(after.versions), JSON.stringify(before.versions), 'versions unchanged');
@@ -194,6 +205,7 @@ export const tests = [
     const csv = readFileSync(file, 'utf8');
     ok(csv.startsWith('measured_on,order_id,version,age_band,system,measured_mosm_per_kg,method,instrument,particle_calculated,labelSum_calculated'), `CSV header: ${csv.slice(0, 200)}`);
     ok(csv.includes(',962,freezing-point,"Osmometer 1, freezing point",'), `CSV row: ${csv}`);
+    await axe(page, 'QA log');
     await page.screenshot({ path: `${ARTIFACTS}/store-qa-log.png`, fullPage: true });
     clean(problems);
     await context.close();

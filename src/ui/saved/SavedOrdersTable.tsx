@@ -41,7 +41,7 @@ export function SavedOrdersTable({ orders, openKey, selected, onSelect, onOpen, 
             <td>{o.signOff ? `${o.signOff.by} · ${showTime(o.signOff.at)}` : '—'}</td>
             <td className="actions">
               <button type="button" onClick={() => onOpen(o.key)} aria-label={`Open ${o.orderId}`}>Open</button>
-              <button type="button" onClick={() => onCopy(o)} aria-label={`Copy ${o.orderId} for the next bag`}>Copy for next bag</button>
+              <button type="button" onClick={() => onCopy(o)} aria-label={`Copy for the next bag: ${o.orderId}`}>Copy for the next bag</button>
               <button type="button" className="danger" onClick={() => onDelete(o)} aria-label={`Delete ${o.orderId}`}>Delete</button>
             </td>
           </tr>

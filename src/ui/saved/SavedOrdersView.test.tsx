@@ -65,7 +65,7 @@ describe('the saved-orders view', () => {
     await seed();
     const user = userEvent.setup();
     render(<SavedWorkProvider dbName={DB}><View /></SavedWorkProvider>);
-    await user.click(await screen.findByRole('button', { name: 'Copy MPH-2026-0412 for the next bag' }));
+    await user.click(await screen.findByRole('button', { name: 'Copy for the next bag: MPH-2026-0412' }));
     const box = await screen.findByRole('alertdialog', { name: 'Copy MPH-2026-0412 for the next bag' });
     const id = within(box).getByLabelText('New order id');
     await waitFor(() => expect(id).toHaveValue('MPH-2026-0415')); // 0413 and 0414 are taken by the other demos
