@@ -1,53 +1,70 @@
-import { useMemo, useState } from 'react';
-import { checkOrder } from '../core/evaluate.ts';
-import { formatProblem } from '../core/problems.ts';
-import { DEFAULT_CATALOG, DEFAULT_POLICY, DEMO_ORDERS } from '../defaults.ts';
+import { useState } from 'react';
+import type { Catalog } from '../core/catalog.ts';
+import type { Policy } from '../core/policy.ts';
+import type { Problem } from '../core/problems.ts';
+import { DEFAULT_CATALOG, DEFAULT_FILES, DEFAULT_POLICY, DEMO_ORDERS } from '../defaults.ts';
+import { docFromFile, newOrderDoc, type OrderDoc } from './order/draft.ts';
+import { useOrderWorkspace } from './order/useOrderWorkspace.ts';
+import { useUndoKeys } from './order/useUndoKeys.ts';
 import { Caution } from './components/Caution.tsx';
-import { OrderStrip } from './components/OrderStrip.tsx';
-import { LinesView } from './components/LinesView.tsx';
-import { OsmolarityPanel } from './components/OsmolarityPanel.tsx';
-import { TotalsPanel } from './components/TotalsPanel.tsx';
-import { FindingsPanel } from './components/FindingsPanel.tsx';
+import { TopBar, type View } from './components/TopBar.tsx';
+import { VerdictBar } from './components/VerdictBar.tsx';
+import { ProblemsList } from './components/ProblemsList.tsx';
+import { OrderView } from './OrderView.tsx';
+import { CatalogView } from './catalog/CatalogView.tsx';
+import { PolicyView } from './policy/PolicyView.tsx';
 
-/** The app: pick an order, see the bag the engine computes and what holds it back. */
+function demoDoc(key: string): OrderDoc | null {
+  const demo = DEMO_ORDERS.find((d) => d.key === key);
+  const r = demo ? docFromFile(demo.file) : null;
+  return r?.ok ? r.value : null;
+}
+
+/** The app: the order workspace, the catalog and the policy in use. State lives in memory (storage comes separately). */
 export function App() {
-  const [demoKey, setDemoKey] = useState(DEMO_ORDERS[0]?.key ?? '');
-  const demo = DEMO_ORDERS.find((d) => d.key === demoKey) ?? DEMO_ORDERS[0];
-  const result = useMemo(() => (demo ? checkOrder(demo.file, DEFAULT_CATALOG, DEFAULT_POLICY) : null), [demo]);
+  const [view, setView] = useState<View>('order');
+  const [catalog, setCatalog] = useState<{ file: unknown; catalog: Catalog }>({ file: DEFAULT_FILES.catalog, catalog: DEFAULT_CATALOG });
+  const [policy, setPolicy] = useState<{ file: unknown; policy: Policy }>({ file: DEFAULT_FILES.policy, policy: DEFAULT_POLICY });
+  const firstKey = DEMO_ORDERS[0]?.key ?? '';
+  const [demoKey, setDemoKey] = useState(firstKey);
+  const [openProblems, setOpenProblems] = useState<Problem[]>([]);
+  const ws = useOrderWorkspace(() => demoDoc(firstKey) ?? newOrderDoc(), catalog.catalog, policy.policy);
+  useUndoKeys(ws, view === 'order');
+
+  const open = (doc: OrderDoc, label: string, key: string) => {
+    setOpenProblems([]);
+    setDemoKey(key);
+    setView('order');
+    ws.edit(label, () => doc);
+  };
+  const report = ws.figures?.report ?? null;
+
   return (
     <div className="app">
-      <header className="top">
-        <div className="brand"><span className="mark" aria-hidden="true" />Osmocount<span className="tag">PN admixture check</span></div>
-        <label className="picker">
-          Demo order
-          <select value={demoKey} onChange={(e) => setDemoKey(e.target.value)}>
-            {DEMO_ORDERS.map((d) => <option key={d.key} value={d.key}>{d.title}</option>)}
-          </select>
-        </label>
-        <span className="context">Catalog: {DEFAULT_CATALOG.name} · Policy: {DEFAULT_POLICY.name}</span>
-      </header>
+      <div className="sticky-top">
+        <TopBar
+          view={view} onView={setView} demoKey={demoKey}
+          onDemo={(key) => { const d = demoDoc(key); if (d) open(d, `Open demo order ${key}`, key); }}
+          onNew={() => open(newOrderDoc(), 'New order', '')}
+          onOpen={(json, name) => {
+            const r = docFromFile(json);
+            if (r.ok) open(r.value, `Open ${name}`, '');
+            else setOpenProblems(r.problems);
+          }}
+          onOpenProblems={setOpenProblems}
+          undoLabel={ws.undoLabel} redoLabel={ws.redoLabel} onUndo={ws.undo} onRedo={ws.redo}
+        />
+        {view === 'order' ? <VerdictBar report={report} stale={ws.stale} problemCount={ws.problems.count} /> : null}
+      </div>
       <Caution />
-      {result === null ? null : result.ok ? (
-        <main>
-          <OrderStrip report={result.value.report} />
-          <div className="grid">
-            <div className="col-main">
-              <LinesView report={result.value.report} />
-              <TotalsPanel report={result.value.report} />
-            </div>
-            <div className="col-side">
-              <OsmolarityPanel report={result.value.report} />
-              <FindingsPanel report={result.value.report} />
-            </div>
-          </div>
-        </main>
+      <p className="context">Catalog: {catalog.catalog.name} · Policy: {policy.policy.name}</p>
+      <ProblemsList problems={openProblems} title="The file could not be opened as an order" />
+      {view === 'order' ? (
+        <main aria-label="Order workspace"><OrderView ws={ws} catalog={catalog.catalog} /></main>
+      ) : view === 'catalog' ? (
+        <CatalogView catalog={catalog.catalog} file={catalog.file} onReplace={(file, c) => setCatalog({ file, catalog: c })} />
       ) : (
-        <main>
-          <section className="panel problems" role="alert">
-            <h2>This order cannot be checked</h2>
-            <ul>{result.problems.map((p, i) => <li key={i}>{formatProblem(p)}</li>)}</ul>
-          </section>
-        </main>
+        <PolicyView policy={policy.policy} file={policy.file} onReplace={(file, p) => setPolicy({ file, policy: p })} />
       )}
     </div>
   );

@@ -24,7 +24,8 @@ export const tests = [
     const { page, context, problems } = await h.newPage();
     await page.goto(h.baseUrl);
     await page.getByLabel('Demo order').selectOption('preterm-neonate');
-    await page.getByText('Preterm neonate', { exact: true }).waitFor();
+    // The order header now shows the opened order's age group in its own field.
+    await page.waitForFunction(() => document.querySelector('[data-testid="reported-osmolarity"]') && [...document.querySelectorAll('select')].some((s) => s.value === 'preterm-neonate'));
     const body = await page.locator('body').innerText();
     ok(body.includes('3.500 g/kg'), 'amino acids per kg');
     ok(body.includes('8.33 mg/kg/min'), 'GIR');

@@ -1,0 +1,62 @@
+import { useMemo, useState } from 'react';
+import type { Catalog } from '../core/catalog.ts';
+import type { Report } from '../core/report.ts';
+import { applyChanges } from './order/edits.ts';
+import { readSuggestions, type Suggestion } from './order/suggestions.ts';
+import type { Workspace } from './order/useOrderWorkspace.ts';
+import { OrderHeader } from './components/OrderHeader.tsx';
+import { LinesTable } from './components/lines/LinesTable.tsx';
+import { TotalsPanel } from './components/TotalsPanel.tsx';
+import { OsmolarityPanel } from './components/OsmolarityPanel.tsx';
+import { ContributionChart } from './components/ContributionChart.tsx';
+import { FindingsPanel } from './components/FindingsPanel.tsx';
+import { SuggestionsPanel } from './components/SuggestionsPanel.tsx';
+import { ProblemsList } from './components/ProblemsList.tsx';
+
+type ReportFinding = Report['findings'][number];
+
+function findingId(f: ReportFinding): string {
+  return `${f.code}|${f.nutrient ?? ''}|${(f as { screen?: string }).screen ?? ''}`;
+}
+
+const NONE: ReadonlySet<string> = new Set();
+
+/** The order workspace: header, lines, and the bag's figures, findings and suggestions beside them. */
+export function OrderView({ ws, catalog }: { ws: Workspace; catalog: Catalog }) {
+  const [selectedId, setSelectedId] = useState<string | null>(null);
+  const figures = ws.figures;
+  const report = figures?.report ?? null;
+  const selected = report ? report.findings.findIndex((f) => findingId(f) === selectedId) : -1;
+  const finding = report?.findings[selected];
+  const highlightedLines = useMemo(
+    () => (finding && figures ? new Set(finding.lines.flatMap((i) => (figures.keys[i] === undefined ? [] : [figures.keys[i]]))) : NONE),
+    [finding, figures],
+  );
+  const highlightedFields = useMemo(() => (finding ? new Set(finding.fields) : NONE), [finding]);
+  const suggestions = useMemo(() => (report && !ws.stale ? readSuggestions(report) : []), [report, ws.stale]);
+  const apply = (s: Suggestion) => ws.edit(`Apply: ${s.title}`, (d) => applyChanges(d, s.changes, catalog));
+
+  return (
+    <>
+      <OrderHeader ws={ws} highlighted={highlightedFields} rate={report?.rateMlPerHour ?? null} />
+      <div className="grid">
+        <div className="col-main">
+          <ProblemsList problems={ws.problems.unplaced} title="Problems in this order" />
+          <LinesTable ws={ws} catalog={catalog} figures={figures} highlighted={highlightedLines} />
+          {report ? <TotalsPanel report={report} stale={ws.stale} /> : null}
+        </div>
+        <div className="col-side">
+          {report ? (
+            <>
+              <OsmolarityPanel report={report} stale={ws.stale} />
+              <SuggestionsPanel suggestions={suggestions} onApply={apply} disabled={ws.stale} />
+              <FindingsPanel report={report} selected={selected === -1 ? null : selected}
+                onSelect={(i) => setSelectedId(i === null ? null : findingId(report.findings[i]!))} />
+              <ContributionChart report={report} />
+            </>
+          ) : <p className="panel none">Figures appear as soon as the order can be checked.</p>}
+        </div>
+      </div>
+    </>
+  );
+}

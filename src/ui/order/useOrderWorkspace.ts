@@ -1,0 +1,111 @@
+// The order workspace's state: the edit history, the one cell being typed into, and the engine's
+// verdict on what is on screen. Figures stay on the last valid report while the order has problems.
+import { useCallback, useMemo, useReducer, useState } from 'react';
+import { checkOrder } from '../../core/evaluate.ts';
+import type { Catalog } from '../../core/catalog.ts';
+import type { Policy } from '../../core/policy.ts';
+import type { Report } from '../../core/report.ts';
+import { headerValue, toOrderFile, type HeaderField, type OrderDoc } from './draft.ts';
+import { setAmount, setHeader } from './edits.ts';
+import { historyReducer, redoLabel, startHistory, undoLabel } from './history.ts';
+import { indexProblems, type ProblemIndex } from './problemIndex.ts';
+
+/** A cell: a header field path, or `line:<key>:amount`. */
+export type CellId = string;
+
+export function lineCell(key: string): CellId {
+  return `line:${key}:amount`;
+}
+
+/** Text typed into a cell but not yet committed (Enter or leaving the cell commits it). */
+export interface Pending {
+  cell: CellId;
+  text: string;
+}
+
+function lineKeyOf(cell: CellId): string | null {
+  const m = /^line:(.+):amount$/.exec(cell);
+  return m ? (m[1] ?? null) : null;
+}
+
+/** The document with a pending cell's text in place (what the figures show while typing). */
+export function withPending(doc: OrderDoc, pending: Pending | null): OrderDoc {
+  if (!pending) return doc;
+  const key = lineKeyOf(pending.cell);
+  if (key !== null) {
+    const i = doc.keys.indexOf(key);
+    return i === -1 ? doc : setAmount(doc, i, pending.text);
+  }
+  return setHeader(doc, pending.cell as HeaderField, pending.text);
+}
+
+/** The text a cell holds in the committed document. */
+export function committedText(doc: OrderDoc, cell: CellId): string {
+  const key = lineKeyOf(cell);
+  if (key === null) return headerValue(doc.order, cell as HeaderField);
+  return doc.order.lines[doc.keys.indexOf(key)]?.amount ?? '';
+}
+
+/** A report and the line keys its line indexes refer to. */
+export interface ShownReport {
+  report: Report;
+  keys: string[];
+  docId: number;
+}
+
+export interface Workspace {
+  doc: OrderDoc;
+  /** The document as displayed (with the pending text). */
+  shown: OrderDoc;
+  pending: Pending | null;
+  /** The report the figures show: the current one, or the last valid one while the order has problems. */
+  figures: ShownReport | null;
+  /** True when the figures are from an earlier, valid state of the order. */
+  stale: boolean;
+  problems: ProblemIndex;
+  undoLabel: string | null;
+  redoLabel: string | null;
+  type(cell: CellId, text: string): void;
+  commit(cell: CellId, label: string): void;
+  cancel(): void;
+  edit(label: string, apply: (doc: OrderDoc) => OrderDoc): void;
+  undo(): void;
+  redo(): void;
+}
+
+/** Hold the order being edited and check it against the catalog and policy on every change. */
+export function useOrderWorkspace(initial: () => OrderDoc, catalog: Catalog, policy: Policy): Workspace {
+  const [history, dispatch] = useReducer(historyReducer, initial, (init) => startHistory(init()));
+  const [pending, setPending] = useState<Pending | null>(null);
+  const doc = history.present;
+  const shown = useMemo(() => withPending(doc, pending), [doc, pending]);
+  const evaluation = useMemo(() => checkOrder(toOrderFile(shown.order), catalog, policy), [shown.order, catalog, policy]);
+  const current = useMemo(() => (evaluation.ok ? { report: evaluation.value.report, keys: shown.keys, docId: shown.docId } : null), [evaluation, shown.keys, shown.docId]);
+  const [lastValid, setLastValid] = useState<ShownReport | null>(current);
+  if (current && current !== lastValid) setLastValid(current);
+  const problems = useMemo(() => indexProblems(evaluation.ok ? [] : evaluation.problems, shown.order.lines.length), [evaluation, shown.order.lines.length]);
+
+  const commit = useCallback((cell: CellId, label: string) => {
+    if (!pending || pending.cell !== cell) return;
+    const text = pending.text;
+    setPending(null);
+    dispatch({ type: 'edit', label, apply: (d) => withPending(d, { cell, text }) });
+  }, [pending]);
+  const edit = useCallback((label: string, apply: (d: OrderDoc) => OrderDoc) => {
+    setPending(null);
+    dispatch({ type: 'edit', label, apply });
+  }, []);
+  const undo = useCallback(() => { setPending(null); dispatch({ type: 'undo' }); }, []);
+  const redo = useCallback(() => { setPending(null); dispatch({ type: 'redo' }); }, []);
+  const type = useCallback((cell: CellId, text: string) => setPending({ cell, text }), []);
+  const cancel = useCallback(() => setPending(null), []);
+
+  return {
+    doc, shown, pending,
+    figures: current ?? (lastValid?.docId === shown.docId ? lastValid : null),
+    stale: current === null,
+    problems,
+    undoLabel: undoLabel(history), redoLabel: redoLabel(history),
+    type, commit, cancel, edit, undo, redo,
+  };
+}
