@@ -73,16 +73,28 @@ export interface Workspace {
   redo(): void;
 }
 
+function check(doc: OrderDoc, catalog: Catalog, policy: Policy) {
+  const evaluation = checkOrder(toOrderFile(doc.order), catalog, policy);
+  const shown: ShownReport | null = evaluation.ok ? { report: evaluation.value.report, keys: doc.keys, docId: doc.docId } : null;
+  return { evaluation, shown };
+}
+
 /** Hold the order being edited and check it against the catalog and policy on every change. */
 export function useOrderWorkspace(initial: () => OrderDoc, catalog: Catalog, policy: Policy): Workspace {
   const [history, dispatch] = useReducer(historyReducer, initial, (init) => startHistory(init()));
   const [pending, setPending] = useState<Pending | null>(null);
   const doc = history.present;
   const shown = useMemo(() => withPending(doc, pending), [doc, pending]);
-  const evaluation = useMemo(() => checkOrder(toOrderFile(shown.order), catalog, policy), [shown.order, catalog, policy]);
-  const current = useMemo(() => (evaluation.ok ? { report: evaluation.value.report, keys: shown.keys, docId: shown.docId } : null), [evaluation, shown.keys, shown.docId]);
-  const [lastValid, setLastValid] = useState<ShownReport | null>(current);
-  if (current && current !== lastValid) setLastValid(current);
+  // The committed order is checked once per edit; while a cell is being typed into, the order with the
+  // typed text is checked too, and shown when it is valid.
+  const committed = useMemo(() => check(doc, catalog, policy), [doc, catalog, policy]);
+  const typed = useMemo(() => (shown === doc ? committed : check(shown, catalog, policy)), [shown, doc, committed, catalog, policy]);
+  const evaluation = typed.evaluation;
+  // The last valid figures come from committed states only, so an invalid keystroke falls back to what
+  // the order says, not to a half-typed number.
+  const [lastValid, setLastValid] = useState<ShownReport | null>(committed.shown);
+  if (committed.shown && committed.shown !== lastValid) setLastValid(committed.shown);
+  const fallback = committed.shown ?? (lastValid?.docId === shown.docId ? lastValid : null);
   const problems = useMemo(() => indexProblems(evaluation.ok ? [] : evaluation.problems, shown.order.lines.length), [evaluation, shown.order.lines.length]);
 
   const commit = useCallback((cell: CellId, label: string) => {
@@ -102,8 +114,8 @@ export function useOrderWorkspace(initial: () => OrderDoc, catalog: Catalog, pol
 
   return {
     doc, shown, pending,
-    figures: current ?? (lastValid?.docId === shown.docId ? lastValid : null),
-    stale: current === null,
+    figures: typed.shown ?? fallback,
+    stale: typed.shown === null,
     problems,
     undoLabel: undoLabel(history), redoLabel: redoLabel(history),
     type, commit, cancel, edit, undo, redo,

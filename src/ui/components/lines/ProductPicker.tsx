@@ -40,7 +40,13 @@ export function ProductPicker({ catalog, value, label, errors, onPick, grid }: P
 
   const onKeyDown = (e: KeyboardEvent<HTMLInputElement>) => {
     if (!open) {
-      if ((e.key === 'ArrowDown' && e.altKey) || e.key === 'F4') { e.preventDefault(); setQuery(''); }
+      // Typing starts a new search (it does not edit the shown stock name).
+      const printable = e.key.length === 1 && !e.ctrlKey && !e.metaKey && !e.altKey;
+      if (printable || e.key === 'Backspace' || (e.key === 'ArrowDown' && e.altKey) || e.key === 'F4') {
+        e.preventDefault();
+        setQuery(printable ? e.key : '');
+        setActive(0);
+      }
       return;
     }
     if (e.key === 'ArrowDown' || e.key === 'ArrowUp') {
