@@ -3,7 +3,7 @@ import { useTable } from '@tanstack/react-table';
 import type { Catalog } from '../../../core/catalog.ts';
 import { addLine } from '../../order/edits.ts';
 import type { ShownReport, Workspace } from '../../order/useOrderWorkspace.ts';
-import { show } from '../../show.ts';
+import { show, showAmount } from '../../show.ts';
 import { columns, features, NUMERIC_COLUMNS } from './columns.tsx';
 import { LinesContext, type LineRow, type LinesContextValue, type ReportLine } from './context.ts';
 import { focusCell, useGridKeys } from './useGridKeys.ts';
@@ -85,9 +85,9 @@ export function LinesTable({ ws, catalog, figures, highlighted }: Props) {
             })}
             {extra.map((l) => (
               <tr key={`alloc-${l.index}`} className="allocated">
-                <td colSpan={3}>{l.name} <span className="muted">(added from the ion order)</span></td>
-                <td colSpan={2}>{l.perDay ? `${show(l.perDay.amount, 2)} ${l.perDay.unit}` : ''}</td>
-                <td /><td />
+                <td colSpan={5}>{l.name} <span className="muted">(added from the ion order)</span></td>
+                <td className="num">{l.perDay ? `${showAmount(l.perDay.amount)} ${l.perDay.unit}` : '—'}</td>
+                <td className="num">{l.perKgPerDay ? `${showAmount(l.perKgPerDay.amount)} ${l.perKgPerDay.unit}` : '—'}</td>
                 <td className="num">{show(l.volumeMl, 2)}</td>
                 <td className="num">{show(l.mOsm, 1)}</td>
                 <td className="num">{show(l.sharePercent, 1)}%</td>

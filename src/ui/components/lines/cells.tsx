@@ -1,4 +1,3 @@
-import { SPECIES, isSpeciesId } from '../../../core/species.ts';
 import { baseUnit, LINE_UNITS, type LineUnit } from '../../../core/order.ts';
 import { moveLine, removeLine, setProduct, setSpecies, setUnit } from '../../order/edits.ts';
 import { FILL, speciesChoices, unitChoices, type UnitChoice } from '../../order/lineUnits.ts';
@@ -69,7 +68,7 @@ export function UnitCell({ row }: { row: LineRow }) {
         {...gridAttrs(row, 'unit')}>
         {value === '' ? <option value="">unit…</option> : null}
         {foreign ? <option value={value}>{value} (not for this stock)</option> : null}
-        {choices.map((u) => <option key={u} value={u}>{u === FILL ? 'fill to volume' : u}</option>)}
+        {choices.map((u) => <option key={u} value={u}>{u === FILL ? 'fill (to volume)' : u}</option>)}
       </select>
       <Errors messages={errors} />
     </span>
@@ -86,7 +85,7 @@ export function SpeciesCell({ row }: { row: LineRow }) {
   const choices: string[] = speciesChoices(product, base);
   const value = row.line.species ?? (product.orderSpecies && choices.includes(product.orderSpecies) ? product.orderSpecies : '');
   const errors = ctx.ws.problems.at(linePath(row.index, 'species'));
-  const label = (s: string) => (s === 'glycerophosphate' ? 'organic P' : isSpeciesId(s) ? SPECIES[s].label.replace(/ \(.*\)$/, '') : s);
+  const label = (s: string) => (s === 'glycerophosphate' ? 'organic P' : s);
   if (choices.length === 1 && value === choices[0] && errors.length === 0) return <span className="species-one">{label(value)}</span>;
   return (
     <span className="cell">
