@@ -29,13 +29,13 @@ export function App() {
   const [demoKey, setDemoKey] = useState(firstKey);
   const [openProblems, setOpenProblems] = useState<Problem[]>([]);
   const ws = useOrderWorkspace(() => demoDoc(firstKey) ?? newOrderDoc(), catalog.catalog, policy.policy);
-  useUndoKeys(ws, view === 'order');
+  useUndoKeys(ws.pending !== null, ws.actions, view === 'order');
 
   const open = (doc: OrderDoc, label: string, key: string) => {
     setOpenProblems([]);
     setDemoKey(key);
     setView('order');
-    ws.edit(label, () => doc);
+    ws.actions.edit(label, () => doc);
   };
   const report = ws.figures?.report ?? null;
 
@@ -52,7 +52,7 @@ export function App() {
             else setOpenProblems(r.problems);
           }}
           onOpenProblems={setOpenProblems}
-          undoLabel={ws.undoLabel} redoLabel={ws.redoLabel} onUndo={ws.undo} onRedo={ws.redo}
+          undoLabel={ws.undoLabel} redoLabel={ws.redoLabel} onUndo={ws.actions.undo} onRedo={ws.actions.redo}
         />
         {view === 'order' ? <VerdictBar report={report} stale={ws.stale} problemCount={ws.problems.count} /> : null}
       </div>

@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useDeferredValue, useMemo, useState } from 'react';
 import type { Catalog } from '../core/catalog.ts';
 import type { Report } from '../core/report.ts';
 import { applyChanges } from './order/edits.ts';
@@ -24,7 +24,10 @@ const NONE: ReadonlySet<string> = new Set();
 /** The order workspace: header, lines, and the bag's figures, findings and suggestions beside them. */
 export function OrderView({ ws, catalog }: { ws: Workspace; catalog: Catalog }) {
   const [selectedId, setSelectedId] = useState<string | null>(null);
-  const figures = ws.figures;
+  // The osmolarity panel follows every keystroke at once; the table's figures, totals, findings and
+  // chart follow in a deferred render, so typing never waits for the whole screen.
+  const urgent = ws.figures;
+  const figures = useDeferredValue(ws.figures);
   const report = figures?.report ?? null;
   const selected = report ? report.findings.findIndex((f) => findingId(f) === selectedId) : -1;
   const finding = report?.findings[selected];
@@ -34,11 +37,11 @@ export function OrderView({ ws, catalog }: { ws: Workspace; catalog: Catalog }) 
   );
   const highlightedFields = useMemo(() => (finding ? new Set(finding.fields) : NONE), [finding]);
   const suggestions = useMemo(() => (report && !ws.stale ? readSuggestions(report) : []), [report, ws.stale]);
-  const apply = (s: Suggestion) => ws.edit(`Apply: ${s.title}`, (d) => applyChanges(d, s.changes, catalog));
+  const apply = (s: Suggestion) => ws.actions.edit(`Apply: ${s.title}`, (d) => applyChanges(d, s.changes, catalog));
 
   return (
     <>
-      <OrderHeader ws={ws} highlighted={highlightedFields} rate={report?.rateMlPerHour ?? null} />
+      <OrderHeader ws={ws} highlighted={highlightedFields} rate={urgent?.report.rateMlPerHour ?? null} />
       <div className="grid">
         <div className="col-main">
           <ProblemsList problems={ws.problems.unplaced} title="Problems in this order" />
@@ -48,7 +51,7 @@ export function OrderView({ ws, catalog }: { ws: Workspace; catalog: Catalog }) 
         <div className="col-side">
           {report ? (
             <>
-              <OsmolarityPanel report={report} stale={ws.stale} />
+              <OsmolarityPanel report={urgent?.report ?? report} stale={ws.stale} />
               <SuggestionsPanel suggestions={suggestions} onApply={apply} disabled={ws.stale} />
               <FindingsPanel report={report} selected={selected === -1 ? null : selected}
                 onSelect={(i) => setSelectedId(i === null ? null : findingId(report.findings[i]!))} />

@@ -21,7 +21,7 @@ export function OrderHeader({ ws, highlighted, rate }: { ws: Workspace; highligh
   const ageId = useId();
   const order = ws.shown.order;
   const choose = (field: HeaderField, label: string, value: string) =>
-    ws.edit(`${label}: ${headerValue(ws.doc.order, field) || 'empty'} → ${value}`, (d) => setHeader(d, field, value));
+    ws.actions.edit(`${label}: ${headerValue(ws.doc.order, field) || 'empty'} → ${value}`, (d) => setHeader(d, field, value));
   const errorsOf = (field: string) => ws.problems.at(field);
   const field = (f: (typeof TEXT_FIELDS)[number]) => (
     <CellInput
@@ -34,9 +34,9 @@ export function OrderHeader({ ws, highlighted, rate }: { ws: Workspace; highligh
       text={ws.pending?.cell === f.field ? ws.pending.text : headerValue(ws.doc.order, f.field)}
       errors={errorsOf(f.field)}
       highlighted={highlighted.has(f.field)}
-      onType={(t) => ws.type(f.field, t)}
-      onCommit={() => ws.commit(f.field, `${f.label}: ${headerValue(ws.doc.order, f.field) || 'empty'} → ${ws.pending?.text || 'empty'}`)}
-      onCancel={ws.cancel}
+      onType={(t) => ws.actions.type(f.field, t)}
+      onCommit={() => ws.actions.commit(f.field, f.label)}
+      onCancel={ws.actions.cancel}
     />
   );
   const routeErrors = errorsOf('route');

@@ -1,13 +1,13 @@
 // The order workspace's state: the edit history, the one cell being typed into, and the engine's
 // verdict on what is on screen. Figures stay on the last valid report while the order has problems.
-import { useCallback, useMemo, useReducer, useState } from 'react';
+import { useMemo, useReducer, useState } from 'react';
 import { checkOrder } from '../../core/evaluate.ts';
 import type { Catalog } from '../../core/catalog.ts';
 import type { Policy } from '../../core/policy.ts';
 import type { Report } from '../../core/report.ts';
 import { headerValue, toOrderFile, type HeaderField, type OrderDoc } from './draft.ts';
 import { setAmount, setHeader } from './edits.ts';
-import { historyReducer, redoLabel, startHistory, undoLabel } from './history.ts';
+import { historyReducer, redoLabel, startHistory, undoLabel, type History, type HistoryAction } from './history.ts';
 import { indexProblems, type ProblemIndex } from './problemIndex.ts';
 
 /** A cell: a header field path, or `line:<key>:amount`. */
@@ -46,11 +46,53 @@ export function committedText(doc: OrderDoc, cell: CellId): string {
   return doc.order.lines[doc.keys.indexOf(key)]?.amount ?? '';
 }
 
+/** The history plus the cell being typed into. */
+export interface WorkspaceState {
+  history: History;
+  pending: Pending | null;
+}
+
+export type WorkspaceAction =
+  | HistoryAction
+  | { type: 'type'; cell: CellId; text: string }
+  /** Commit the pending text of `cell`; `what` names the field for the undo list ("Amount, line 2"). */
+  | { type: 'commit'; cell: CellId; what: string }
+  | { type: 'cancel' };
+
+/** Typing changes only the pending text; a commit turns it into one recorded edit; any other edit drops it. */
+export function workspaceReducer(state: WorkspaceState, action: WorkspaceAction): WorkspaceState {
+  switch (action.type) {
+    case 'type':
+      return { ...state, pending: { cell: action.cell, text: action.text } };
+    case 'cancel':
+      return state.pending ? { ...state, pending: null } : state;
+    case 'commit': {
+      const p = state.pending;
+      if (!p || p.cell !== action.cell) return state;
+      const before = committedText(state.history.present, p.cell);
+      const label = `${action.what}: ${before || 'empty'} → ${p.text || 'empty'}`;
+      return { history: historyReducer(state.history, { type: 'edit', label, apply: (d) => withPending(d, p) }), pending: null };
+    }
+    default:
+      return { history: historyReducer(state.history, action), pending: null };
+  }
+}
+
 /** A report and the line keys its line indexes refer to. */
 export interface ShownReport {
   report: Report;
   keys: string[];
   docId: number;
+}
+
+/** What the components call to change the order; the object never changes, so memoized cells stay put. */
+export interface WorkspaceActions {
+  type(cell: CellId, text: string): void;
+  commit(cell: CellId, what: string): void;
+  cancel(): void;
+  edit(label: string, apply: (doc: OrderDoc) => OrderDoc): void;
+  undo(): void;
+  redo(): void;
 }
 
 export interface Workspace {
@@ -65,12 +107,7 @@ export interface Workspace {
   problems: ProblemIndex;
   undoLabel: string | null;
   redoLabel: string | null;
-  type(cell: CellId, text: string): void;
-  commit(cell: CellId, label: string): void;
-  cancel(): void;
-  edit(label: string, apply: (doc: OrderDoc) => OrderDoc): void;
-  undo(): void;
-  redo(): void;
+  actions: WorkspaceActions;
 }
 
 function check(doc: OrderDoc, catalog: Catalog, policy: Policy) {
@@ -81,36 +118,29 @@ function check(doc: OrderDoc, catalog: Catalog, policy: Policy) {
 
 /** Hold the order being edited and check it against the catalog and policy on every change. */
 export function useOrderWorkspace(initial: () => OrderDoc, catalog: Catalog, policy: Policy): Workspace {
-  const [history, dispatch] = useReducer(historyReducer, initial, (init) => startHistory(init()));
-  const [pending, setPending] = useState<Pending | null>(null);
+  const [state, dispatch] = useReducer(workspaceReducer, initial, (init) => ({ history: startHistory(init()), pending: null }));
+  const { history, pending } = state;
   const doc = history.present;
   const shown = useMemo(() => withPending(doc, pending), [doc, pending]);
   // The committed order is checked once per edit; while a cell is being typed into, the order with the
   // typed text is checked too, and shown when it is valid.
   const committed = useMemo(() => check(doc, catalog, policy), [doc, catalog, policy]);
   const typed = useMemo(() => (shown === doc ? committed : check(shown, catalog, policy)), [shown, doc, committed, catalog, policy]);
-  const evaluation = typed.evaluation;
   // The last valid figures come from committed states only, so an invalid keystroke falls back to what
   // the order says, not to a half-typed number.
   const [lastValid, setLastValid] = useState<ShownReport | null>(committed.shown);
   if (committed.shown && committed.shown !== lastValid) setLastValid(committed.shown);
   const fallback = committed.shown ?? (lastValid?.docId === shown.docId ? lastValid : null);
+  const evaluation = typed.evaluation;
   const problems = useMemo(() => indexProblems(evaluation.ok ? [] : evaluation.problems, shown.order.lines.length), [evaluation, shown.order.lines.length]);
-
-  const commit = useCallback((cell: CellId, label: string) => {
-    if (!pending || pending.cell !== cell) return;
-    const text = pending.text;
-    setPending(null);
-    dispatch({ type: 'edit', label, apply: (d) => withPending(d, { cell, text }) });
-  }, [pending]);
-  const edit = useCallback((label: string, apply: (d: OrderDoc) => OrderDoc) => {
-    setPending(null);
-    dispatch({ type: 'edit', label, apply });
-  }, []);
-  const undo = useCallback(() => { setPending(null); dispatch({ type: 'undo' }); }, []);
-  const redo = useCallback(() => { setPending(null); dispatch({ type: 'redo' }); }, []);
-  const type = useCallback((cell: CellId, text: string) => setPending({ cell, text }), []);
-  const cancel = useCallback(() => setPending(null), []);
+  const actions = useMemo<WorkspaceActions>(() => ({
+    type: (cell, text) => dispatch({ type: 'type', cell, text }),
+    commit: (cell, what) => dispatch({ type: 'commit', cell, what }),
+    cancel: () => dispatch({ type: 'cancel' }),
+    edit: (label, apply) => dispatch({ type: 'edit', label, apply }),
+    undo: () => dispatch({ type: 'undo' }),
+    redo: () => dispatch({ type: 'redo' }),
+  }), []);
 
   return {
     doc, shown, pending,
@@ -118,6 +148,6 @@ export function useOrderWorkspace(initial: () => OrderDoc, catalog: Catalog, pol
     stale: typed.shown === null,
     problems,
     undoLabel: undoLabel(history), redoLabel: redoLabel(history),
-    type, commit, cancel, edit, undo, redo,
+    actions,
   };
 }

@@ -1,13 +1,13 @@
 import { useEffect } from 'react';
-import type { Workspace } from './useOrderWorkspace.ts';
+import type { WorkspaceActions } from './useOrderWorkspace.ts';
 
 /**
  * Ctrl+Z undoes the last edit of the order, Ctrl+Shift+Z or Ctrl+Y redoes it (⌘ on a Mac). While a cell
  * holds typed but uncommitted text, Ctrl+Z first drops that text. Forms outside the order (the catalog
  * editor, marked `data-own-undo`) keep the browser's own text undo.
  */
-export function useUndoKeys(ws: Pick<Workspace, 'pending' | 'cancel' | 'undo' | 'redo'>, active: boolean): void {
-  const { pending, cancel, undo, redo } = ws;
+export function useUndoKeys(typing: boolean, actions: WorkspaceActions, active: boolean): void {
+  const { cancel, undo, redo } = actions;
   useEffect(() => {
     if (!active) return;
     const onKey = (e: KeyboardEvent) => {
@@ -17,7 +17,7 @@ export function useUndoKeys(ws: Pick<Workspace, 'pending' | 'cancel' | 'undo' | 
       const key = e.key.toLowerCase();
       if (key === 'z' && !e.shiftKey) {
         e.preventDefault();
-        if (pending) cancel();
+        if (typing) cancel();
         else undo();
       } else if ((key === 'z' && e.shiftKey) || key === 'y') {
         e.preventDefault();
@@ -26,5 +26,5 @@ export function useUndoKeys(ws: Pick<Workspace, 'pending' | 'cancel' | 'undo' | 
     };
     window.addEventListener('keydown', onKey);
     return () => window.removeEventListener('keydown', onKey);
-  }, [active, pending, cancel, undo, redo]);
+  }, [active, typing, cancel, undo, redo]);
 }

@@ -6,6 +6,8 @@ import type { ShownReport, Workspace } from '../../order/useOrderWorkspace.ts';
 import { show, showAmount } from '../../show.ts';
 import { columns, features, NUMERIC_COLUMNS } from './columns.tsx';
 import { LinesContext, type LineRow, type LinesContextValue, type ReportLine } from './context.ts';
+import { linePath, type LineField } from '../../order/problemIndex.ts';
+import { lineCell } from '../../order/useOrderWorkspace.ts';
 import { focusCell, useGridKeys } from './useGridKeys.ts';
 
 interface Props {
@@ -18,17 +20,31 @@ interface Props {
 
 /** The order's lines: typed amounts on the left, the engine's figures for each line on the right. */
 export function LinesTable({ ws, catalog, figures, highlighted }: Props) {
-  const { shown } = ws;
-  const data = useMemo<LineRow[]>(() => shown.order.lines.map((line, index) => ({ key: shown.keys[index] ?? `x${index}`, index, line })), [shown]);
+  const { shown, problems, pending, actions } = ws;
   const byKey = useMemo(() => {
     const map = new Map<string, ReportLine>();
     if (figures) for (const l of figures.report.lines) { const k = figures.keys[l.index]; if (k !== undefined) map.set(k, l); }
     return map;
   }, [figures]);
+  const data = useMemo<LineRow[]>(() => shown.order.lines.map((line, index) => {
+    const key = shown.keys[index] ?? `x${index}`;
+    const product = catalog.byId.get(line.product);
+    const at = (field: LineField) => problems.at(linePath(index, field));
+    return {
+      key, index, line,
+      name: `line ${index + 1}${product ? `, ${product.name}` : line.product ? `, ${line.product}` : ''}`,
+      pendingText: pending?.cell === lineCell(key) ? pending.text : null,
+      errors: {
+        product: [...at('product'), ...problems.line(index), ...at('fill')].join('; '),
+        amount: at('amount').join('; '), unit: at('unit').join('; '), species: at('species').join('; '),
+      },
+      computed: byKey.get(key) ?? null,
+      highlighted: highlighted.has(key),
+      last: index === shown.order.lines.length - 1,
+    };
+  }), [shown, catalog, problems, pending, byKey, highlighted]);
   const extra = figures ? figures.report.lines.filter((l) => l.index >= figures.keys.length) : [];
-  const context = useMemo<LinesContextValue>(() => ({
-    ws, catalog, highlighted, lineCount: data.length, computed: (key) => byKey.get(key) ?? null,
-  }), [ws, catalog, highlighted, data.length, byKey]);
+  const context = useMemo<LinesContextValue>(() => ({ actions, catalog }), [actions, catalog]);
   const table = useTable({ features, columns, data, getRowId: (r) => r.key });
   const onKeyDown = useGridKeys();
   const body = useRef<HTMLTableSectionElement>(null);
@@ -45,9 +61,9 @@ export function LinesTable({ ws, catalog, figures, highlighted }: Props) {
 
   const add = () => {
     focusKey.current = `l${ws.doc.nextKey}`;
-    ws.edit('Add a line', (d) => addLine(d).doc);
+    actions.edit('Add a line', (d) => addLine(d).doc);
   };
-  const lineProblems = ws.problems.at('lines');
+  const lineProblems = problems.at('lines');
 
   return (
     <section className="panel lines-panel" aria-labelledby="lines-title">
@@ -72,7 +88,7 @@ export function LinesTable({ ws, catalog, figures, highlighted }: Props) {
           <tbody ref={body} onKeyDown={onKeyDown}>
             {table.getRowModel().rows.map((row) => {
               const r = row.original;
-              const classes = [r.line.fill ? 'fill' : '', highlighted.has(r.key) ? 'hl' : ''].filter(Boolean).join(' ');
+              const classes = [r.line.fill ? 'fill' : '', r.highlighted ? 'hl' : ''].filter(Boolean).join(' ');
               return (
                 <tr key={row.id} className={classes || undefined} data-key={r.key}>
                   {row.getAllCells().map((cell) => (

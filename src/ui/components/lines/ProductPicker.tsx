@@ -63,7 +63,7 @@ export function ProductPicker({ catalog, value, label, errors, onPick, grid }: P
 
   const starts = groups.map((_, gi) => groups.slice(0, gi).reduce((sum, g) => sum + g.products.length, 0));
   return (
-    <span className="cell picker-cell">
+    <span className={`cell picker-cell${open ? ' open' : ''}`}>
       <input
         id={id}
         role="combobox"
