@@ -51,7 +51,7 @@ export const tests = [
     await waitForText(page, 'reported-osmolarity', '1149.3');
     ok((await page.getByTestId('verdict').textContent()).startsWith('Hold'), 'verdict turns to Hold');
     ok((await page.getByTestId('osmolarity-against').textContent()).startsWith('249.3 over the peripheral limit of 900'), 'limit and margin shown');
-    ok(await page.getByText('osmolarity-peripheral').first().isVisible(), 'finding listed');
+    await page.getByText('osmolarity-peripheral').first().waitFor();
     await page.screenshot({ path: `${ARTIFACTS}/workspace-hold-1366x768.png` });
     await page.screenshot({ path: `${ARTIFACTS}/workspace-hold-full.png`, fullPage: true });
     await page.keyboard.press('Control+z');
@@ -87,8 +87,8 @@ export const tests = [
     await page.keyboard.press('Enter');
     // 20 mEq ÷ 2 mEq/mL = 10 mL; 10 mL × 4 mOsm/mL (label 4000 mOsm/L) ÷ 2 L = +20.0 mOsm/L.
     await waitForText(page, 'reported-osmolarity', '917.0');
-    const volume = await page.locator('tr', { has: page.getByRole('combobox', { name: 'Stock, line 11' }) }).locator('td.col-volumeMl').textContent();
-    equal(volume, '10.00', 'stock volume of the new line');
+    // The line's figures follow in the deferred render.
+    await page.locator('tr', { has: page.getByRole('combobox', { name: 'Stock, line 11' }) }).locator('td.col-volumeMl', { hasText: /^10\.00$/ }).waitFor();
     clean(problems);
     await context.close();
   }],
@@ -125,6 +125,7 @@ export const tests = [
     await page.getByRole('button', { name: 'Catalog' }).click();
     await page.getByRole('button', { name: /^Edit Dextrose 70%/ }).click();
     await axe(page, 'catalog view with the stock editor');
+    await page.screenshot({ path: `${ARTIFACTS}/workspace-catalog.png` });
     await page.getByRole('button', { name: 'Policy' }).click();
     await axe(page, 'policy view');
     await page.screenshot({ path: `${ARTIFACTS}/workspace-policy.png` });
