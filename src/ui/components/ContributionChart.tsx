@@ -44,7 +44,7 @@ export function ContributionChart({ report }: { report: Report }) {
       <svg viewBox={`0 0 ${W} ${rowsH}`} width="100%" aria-hidden="true" className="chart-rows">
         {lines.map((l, i) => {
           const y = i * (BAR_H + 6);
-          const w = ((W - LABEL_W - 70) * l.mOsm) / maxLine;
+          const w = ((W - LABEL_W - 84) * l.mOsm) / maxLine;
           return (
             <g key={l.index}>
               <text x="0" y={y + BAR_H - 3} className="chart-label">{l.name.length > 22 ? `${l.name.slice(0, 21)}…` : l.name}</text>
