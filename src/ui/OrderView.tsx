@@ -16,7 +16,7 @@ import { ProblemsList } from './components/ProblemsList.tsx';
 type ReportFinding = Report['findings'][number];
 
 function findingId(f: ReportFinding): string {
-  return `${f.code}|${f.nutrient ?? ''}|${(f as { screen?: string }).screen ?? ''}`;
+  return `${f.code}|${f.nutrient ?? ''}|${f.screen ?? ''}`;
 }
 
 const NONE: ReadonlySet<string> = new Set();
@@ -36,7 +36,7 @@ export function OrderView({ ws, catalog }: { ws: Workspace; catalog: Catalog }) 
     [finding, figures],
   );
   const highlightedFields = useMemo(() => (finding ? new Set(finding.fields) : NONE), [finding]);
-  const suggestions = useMemo(() => (report && !ws.stale ? readSuggestions(report) : []), [report, ws.stale]);
+  const suggestions = useMemo(() => (report && !ws.stale ? readSuggestions(report) : { proposals: [], unavailable: [] }), [report, ws.stale]);
   const apply = (s: Suggestion) => ws.actions.edit(`Apply: ${s.title}`, (d) => applyChanges(d, s.changes, catalog));
 
   return (
@@ -52,7 +52,7 @@ export function OrderView({ ws, catalog }: { ws: Workspace; catalog: Catalog }) 
           {report ? (
             <>
               <OsmolarityPanel report={urgent?.report ?? report} stale={ws.stale} />
-              <SuggestionsPanel suggestions={suggestions} onApply={apply} disabled={ws.stale} />
+              <SuggestionsPanel suggestions={suggestions.proposals} unavailable={suggestions.unavailable} onApply={apply} disabled={ws.stale} />
               <FindingsPanel report={report} selected={selected === -1 ? null : selected}
                 onSelect={(i) => setSelectedId(i === null ? null : findingId(report.findings[i]!))} />
               <ContributionChart report={report} />

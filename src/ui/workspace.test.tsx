@@ -116,6 +116,21 @@ describe('undo and redo', () => {
   });
 });
 
+describe('solver proposals', () => {
+  it('apply the larger final volume with one click; undo takes it back', async () => {
+    const s = await openWorkspace();
+    await s.enterAmount(2, '250');
+    expect(s.verdict()).toMatch(/^Hold/);
+    await s.user.click(screen.getByRole('button', { name: /^Apply: Final volume 2560 mL/ }));
+    // 2298.6 label mOsm ÷ 2.56 L = 897.9 mOsm/L: under the 900 limit (ASPEN 2014).
+    expect(s.osmolarity()).toBe('897.9');
+    expect(screen.getByLabelText('Final volume')).toHaveValue('2560');
+    expect(s.verdict()).not.toMatch(/^Hold/);
+    await s.undo();
+    expect(s.osmolarity()).toBe('1149.3');
+  });
+});
+
 describe('keyboard-only entry', () => {
   it('arrow keys move between cells; Enter commits', async () => {
     const s = await openWorkspace();

@@ -26,7 +26,7 @@ export const tests = [
     await page.getByLabel('Demo order').selectOption('preterm-neonate');
     // The order header shows the opened order's age group in its own field.
     equal(await page.getByLabel('Age group').inputValue(), 'preterm-neonate', 'age group of the opened order');
-    await page.getByText('8.33 mg/kg/min').waitFor();
+    await page.getByText('8.33 mg/kg/min', { exact: true }).waitFor();
     const body = await page.locator('body').innerText();
     ok(body.includes('3.500 g/kg'), 'amino acids per kg');
     ok(body.includes('8.33 mg/kg/min'), 'GIR');

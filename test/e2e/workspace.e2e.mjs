@@ -71,6 +71,31 @@ export const tests = [
     clean(problems);
     await context.close();
   }],
+  ['the solver\'s volume proposal, applied from the keyboard, brings the held bag under the limit; undo takes it back', async (h) => {
+    const { page, context, problems } = await h.newPage();
+    await page.goto(h.baseUrl);
+    await waitForText(page, 'reported-osmolarity', '897.0');
+    await tabTo(page, 'Amount, line 2, Dextrose 70% injection');
+    await page.keyboard.type('250');
+    await page.keyboard.press('Enter');
+    await waitForText(page, 'reported-osmolarity', '1149.3');
+    await tabTo(page, 'Apply: Final volume');
+    await page.screenshot({ path: `${ARTIFACTS}/workspace-suggestions.png` });
+    await page.keyboard.press('Enter');
+    // The label mOsm in the bag (2298.6) do not change with water: at 2560 mL, 2298.6 ÷ 2.56 = 897.9 mOsm/L,
+    // under 900 (ASPEN 2014). Journey 2: "final volume ≥ 2,560 mL".
+    await waitForText(page, 'reported-osmolarity', '897.9');
+    equal(await page.getByRole('textbox', { name: 'Final volume' }).inputValue(), '2560', 'final volume applied');
+    const verdict = await page.getByTestId('verdict').textContent();
+    ok(!verdict.startsWith('Hold'), `no longer held: ${verdict}`);
+    ok((await page.getByTestId('osmolarity-against').textContent()).includes('under the peripheral limit of 900'), 'under the limit');
+    await page.screenshot({ path: `${ARTIFACTS}/workspace-after-volume.png` });
+    await page.keyboard.press('Control+z');
+    await waitForText(page, 'reported-osmolarity', '1149.3');
+    equal(await page.getByRole('textbox', { name: 'Final volume' }).inputValue(), '2000', 'undo restores the volume');
+    clean(problems);
+    await context.close();
+  }],
   ['keyboard only: add a line, find its stock, give an amount', async (h) => {
     const { page, context, problems } = await h.newPage();
     await page.goto(h.baseUrl);

@@ -95,6 +95,16 @@ export function addLine(doc: OrderDoc): { doc: OrderDoc; key: string } {
   return { doc: { ...doc, order: { ...doc.order, lines }, keys, nextKey: doc.nextKey + 1 }, key };
 }
 
+/** Append a fill line of a stock (the solver's larger volume needs one when the order has none). */
+export function addFillLine(doc: OrderDoc, productId: string): OrderDoc {
+  return {
+    ...doc,
+    order: { ...doc.order, lines: [...doc.order.lines, { product: productId, fill: true }] },
+    keys: [...doc.keys, `l${doc.nextKey}`],
+    nextKey: doc.nextKey + 1,
+  };
+}
+
 /** Remove a line. */
 export function removeLine(doc: OrderDoc, index: number): OrderDoc {
   if (index < 0 || index >= doc.order.lines.length) return doc;
@@ -128,12 +138,14 @@ export interface Change {
 
 const LINE_PATH = /^lines\[(\d+)\]\.(amount|unit|species)$/;
 
-/** Apply path/value changes (a suggestion) to the document; unknown paths are ignored. */
+/** Apply path/value changes (a suggestion) to the document; `lines[+].fill` adds a fill line of that stock; unknown paths are ignored. */
 export function applyChanges(doc: OrderDoc, changes: readonly Change[], catalog: Catalog): OrderDoc {
   let out = doc;
   for (const c of changes) {
     const m = LINE_PATH.exec(c.path);
-    if (m) {
+    if (c.path === 'lines[+].fill') {
+      out = addFillLine(out, c.value);
+    } else if (m) {
       const i = Number(m[1]);
       if (m[2] === 'amount') out = setAmount(out, i, c.value);
       else if (m[2] === 'unit' && (isLineUnit(c.value) || c.value === FILL)) out = setUnit(out, i, c.value, catalog);
