@@ -43,13 +43,15 @@ export function OsmolarityPanel({ report, stale }: { report: Report; stale: bool
       </dl>
       {predicted ? (
         <div className="info predicted">
-          <p><strong>Predicted osmolality (estimate, for information):</strong></p>
-          <ul>
-            {predicted.estimates.map((e) => (
-              <li key={e.label}>{e.label}: {show(e.value, 0)} {e.unit} <span className="src">({e.source}{e.status ? `; ${e.status}` : ''})</span></li>
-            ))}
-          </ul>
-          {predicted.note ? <p>{predicted.note}</p> : null}
+          <p><strong>Predicted osmolality (estimate, for information):</strong>{' '}
+            {predicted.estimates.map((e) => `${show(e.value, 0)} ${e.unit} (${e.label.toLowerCase()})`).join('; ')}</p>
+          <details>
+            <summary>How far to trust it</summary>
+            <ul>
+              {predicted.estimates.map((e) => <li key={e.label}>{e.label}: {e.source}{e.status ? ` — ${e.status}` : ''}</li>)}
+            </ul>
+            {predicted.note ? <p>{predicted.note}</p> : null}
+          </details>
         </div>
       ) : null}
       <p className="info">
