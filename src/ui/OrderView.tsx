@@ -1,4 +1,4 @@
-import { useDeferredValue, useMemo, useState } from 'react';
+import { useDeferredValue, useEffect, useMemo, useState } from 'react';
 import type { Catalog } from '../core/catalog.ts';
 import type { Report } from '../core/report.ts';
 import { applyChanges } from './order/edits.ts';
@@ -36,6 +36,12 @@ export function OrderView({ ws, catalog }: { ws: Workspace; catalog: Catalog }) 
     [finding, figures],
   );
   const highlightedFields = useMemo(() => (finding ? new Set(finding.fields) : NONE), [finding]);
+  // Bring the first line a newly chosen finding concerns into view (the findings list can be long).
+  const firstKey = highlightedLines.values().next().value;
+  useEffect(() => {
+    if (selectedId === null || firstKey === undefined) return;
+    document.querySelector(`tr[data-key="${firstKey}"]`)?.scrollIntoView?.({ block: 'center' });
+  }, [selectedId, firstKey]);
   const suggestions = useMemo(() => (report && !ws.stale ? readSuggestions(report) : { proposals: [], unavailable: [] }), [report, ws.stale]);
   const apply = (s: Suggestion) => ws.actions.edit(`Apply: ${s.title}`, (d) => applyChanges(d, s.changes, catalog));
 
@@ -52,10 +58,10 @@ export function OrderView({ ws, catalog }: { ws: Workspace; catalog: Catalog }) 
           {report ? (
             <>
               <OsmolarityPanel report={urgent?.report ?? report} stale={ws.stale} />
+              <ContributionChart report={report} />
               <SuggestionsPanel suggestions={suggestions.proposals} unavailable={suggestions.unavailable} onApply={apply} disabled={ws.stale} />
               <FindingsPanel report={report} selected={selected === -1 ? null : selected}
                 onSelect={(i) => setSelectedId(i === null ? null : findingId(report.findings[i]!))} />
-              <ContributionChart report={report} />
             </>
           ) : <p className="panel none">Figures appear as soon as the order can be checked.</p>}
         </div>

@@ -129,10 +129,24 @@ export const tests = [
     ok(box && box.y >= 0 && box.y < 120, `verdict in view after scrolling (y = ${box?.y})`);
     // Choosing a finding highlights the lines it concerns.
     await page.getByLabel('Demo order').selectOption('preterm-neonate');
+    const notes = page.locator('details.notes');
+    if (!(await notes.evaluate((d) => d.open))) await notes.locator('summary').click();
     await page.getByRole('button', { name: /missing-label-osmolarity/ }).click();
     const highlighted = await page.locator('tr.hl').count();
     ok(highlighted >= 1, 'the concerned line is highlighted');
     await page.screenshot({ path: `${ARTIFACTS}/workspace-finding-highlight.png` });
+    clean(problems);
+    await context.close();
+  }],
+  ['the ion-order demo shows the salts the allocator added beside the typed lines', async (h) => {
+    const { page, context, problems } = await h.newPage();
+    await page.goto(h.baseUrl);
+    await page.getByTestId('reported-osmolarity').waitFor();
+    await page.getByLabel('Demo order').selectOption('adult-ions');
+    await page.getByText('(added from the ion order)').first().waitFor();
+    const added = await page.locator('tr.allocated').count();
+    ok(added >= 4, `allocated lines shown (${added})`);
+    await page.screenshot({ path: `${ARTIFACTS}/workspace-ion-order.png`, fullPage: true });
     clean(problems);
     await context.close();
   }],
