@@ -24,34 +24,17 @@ function bound(r: Rule): string {
   return [min, max].filter(Boolean).join(' and ') || '—';
 }
 
-/** The limits in force, each with its severity and source; import a policy file (invalid → nothing replaced). */
-export function PolicyView({ policy, file, onReplace }: Props) {
-  const [problems, setProblems] = useState<Problem[]>([]);
-  const [notice, setNotice] = useState<string | null>(null);
-  const importFile = (json: unknown, name: string) => {
-    const r = parsePolicy(json);
-    if (!r.ok) { setProblems(r.problems); setNotice(`${name} was not imported: the policy in force is unchanged.`); return; }
-    setProblems([]);
-    onReplace(json, r.value, `Imported ${name}`);
-    setNotice(`Imported ${name}: ${r.value.name}.`);
-  };
-  const rows = Object.entries(policy.rules as Record<string, unknown>).flatMap(([code, byAge]) =>
+/** One table of rules by check (or nutrient) and age group, each with its bound, severity and source. */
+function RuleTable({ title, rules }: { title: string; rules: Record<string, unknown> }) {
+  const rows = Object.entries(rules).flatMap(([code, byAge]) =>
     AGE_KEYS.flatMap((age) => {
       const rule = (byAge as Record<string, unknown> | null)?.[age];
       return isRule(rule) ? [{ code, age, rule }] : [];
     }));
-  const ref = policy.reference;
   return (
-    <main className="policy-view" aria-labelledby="policy-title">
-      <div className="view-head">
-        <h1 id="policy-title">Policy: {policy.name}</h1>
-        <span className="muted">id {policy.id}{policy.institution ? ` · ${policy.institution}` : ''}</span>
-        <FileImport label="Import policy file…" onJson={importFile} onProblems={(p) => { setProblems(p); setNotice('The file was not imported: the policy in force is unchanged.'); }} />
-      </div>
-      {notice ? <p className="notice" role="status">{notice}</p> : null}
-      <ProblemsList problems={problems} title="Problems in the imported policy" />
-      <p>Reported osmolarity: <strong>{policy.reportedOsmolarity === 'higher' ? 'the higher of particle count and label sum' : policy.reportedOsmolarity}</strong> — {policy.reportedOsmolaritySource}</p>
-      <table className="policy-table" aria-labelledby="policy-title">
+    <>
+      <h2>{title}</h2>
+      <table className="policy-table" aria-label={title}>
         <thead>
           <tr><th scope="col">Check</th><th scope="col">Applies to</th><th scope="col">Limit</th><th scope="col">Unit</th><th scope="col">Severity</th><th scope="col">Source</th></tr>
         </thead>
@@ -68,6 +51,40 @@ export function PolicyView({ policy, file, onReplace }: Props) {
           ))}
         </tbody>
       </table>
+    </>
+  );
+}
+
+/** The limits in force, each with its severity and source; import a policy file (invalid → nothing replaced). */
+export function PolicyView({ policy, file, onReplace }: Props) {
+  const [problems, setProblems] = useState<Problem[]>([]);
+  const [notice, setNotice] = useState<string | null>(null);
+  const importFile = (json: unknown, name: string) => {
+    const r = parsePolicy(json);
+    if (!r.ok) { setProblems(r.problems); setNotice(`${name} was not imported: the policy in force is unchanged.`); return; }
+    setProblems([]);
+    onReplace(json, r.value, `Imported ${name}`);
+    setNotice(`Imported ${name}: ${r.value.name}.`);
+  };
+  const ref = policy.reference;
+  const steps = policy.solver;
+  return (
+    <main className="policy-view" aria-labelledby="policy-title">
+      <div className="view-head">
+        <h1 id="policy-title">Policy: {policy.name}</h1>
+        <span className="muted">id {policy.id}{policy.institution ? ` · ${policy.institution}` : ''}</span>
+        <FileImport label="Import policy file…" onJson={importFile} onProblems={(p) => { setProblems(p); setNotice('The file was not imported: the policy in force is unchanged.'); }} />
+      </div>
+      {notice ? <p className="notice" role="status">{notice}</p> : null}
+      <ProblemsList problems={problems} title="Problems in the imported policy" />
+      <p>Reported osmolarity: <strong>{policy.reportedOsmolarity === 'higher' ? 'the higher of particle count and label sum' : policy.reportedOsmolarity}</strong> — {policy.reportedOsmolaritySource}</p>
+      <RuleTable title="Release checks" rules={policy.rules} />
+      <RuleTable title="Dose ranges (per kg per day unless the unit says otherwise)" rules={policy.doseRanges} />
+      <h2>Solver steps</h2>
+      <p>
+        Final volume rounded up to {AGE_KEYS.flatMap((a) => (steps.volumeStepMl[a] ? [`${steps.volumeStepMl[a].toString()} mL (${ageText(a).toLowerCase()})`] : [])).join(', ')};
+        dextrose rounded down to {Object.entries(steps.dextroseStep).map(([u, v]) => `${v.toString()} ${u}`).join(', ')} — {steps.source}
+      </p>
       <h2>Reference values</h2>
       <dl className="pairs">
         <div><dt>Amino acids per g nitrogen</dt><dd>{ref.gramsAminoAcidPerGramNitrogen.value.toString()} g — {ref.gramsAminoAcidPerGramNitrogen.source}</dd></div>
