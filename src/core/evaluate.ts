@@ -29,12 +29,16 @@ export function evaluateOrder(order: Order, catalog: Catalog, policy: Policy, op
   return makeEvaluation({ order, bag, findings, verdict, suggestions }, catalog, policy);
 }
 
-/** Validate an order file against the catalog (allocating its ion block, if any), then evaluate it; invalid input returns its problems. */
-export function checkOrder(input: unknown, catalog: Catalog, policy: Policy): Result<Evaluation> {
+/**
+ * Validate an order file against the catalog (allocating its ion block, if any), then evaluate it; invalid
+ * input returns its problems. `options.suggestions: false` skips the solver (the workspace does, while a
+ * number is being typed).
+ */
+export function checkOrder(input: unknown, catalog: Catalog, policy: Policy, options: EvaluateOptions = {}): Result<Evaluation> {
   const order = parseOrder(input, catalog);
   if (!order.ok) return order;
-  if (!hasIons(order.value)) return { ok: true, value: evaluateOrder(order.value, catalog, policy) };
+  if (!hasIons(order.value)) return { ok: true, value: evaluateOrder(order.value, catalog, policy, options) };
   // An ion order: allocate its electrolyte lines, then check the bag they make.
   const compounded = compoundOrder(order.value, catalog, policy);
-  return { ok: true, value: withIonFindings(evaluateOrder(compounded.compounded, catalog, policy), compounded, catalog, policy) };
+  return { ok: true, value: withIonFindings(evaluateOrder(compounded.compounded, catalog, policy, options), compounded, catalog, policy) };
 }

@@ -42,7 +42,8 @@ export function OrderView({ ws, catalog }: { ws: Workspace; catalog: Catalog }) 
     if (selectedId === null || firstKey === undefined) return;
     document.querySelector(`tr[data-key="${firstKey}"]`)?.scrollIntoView?.({ block: 'center' });
   }, [selectedId, firstKey]);
-  const suggestions = useMemo(() => (report && !ws.stale ? readSuggestions(report) : { proposals: [], unavailable: [] }), [report, ws.stale]);
+  // Proposals belong to the committed order: they stay while a number is typed, and go when it is invalid.
+  const suggestions = useMemo(() => (report && ws.suggestions ? readSuggestions(report, ws.suggestions) : { proposals: [], unavailable: [] }), [report, ws.suggestions]);
   const apply = (s: Suggestion) => ws.actions.edit(`Apply: ${s.title}`, (d) => applyChanges(d, s.changes, catalog));
 
   return (
@@ -59,7 +60,7 @@ export function OrderView({ ws, catalog }: { ws: Workspace; catalog: Catalog }) 
             <>
               <OsmolarityPanel report={urgent?.report ?? report} stale={ws.stale} />
               <ContributionChart report={report} />
-              <SuggestionsPanel suggestions={suggestions.proposals} unavailable={suggestions.unavailable} onApply={apply} disabled={ws.stale} />
+              <SuggestionsPanel suggestions={suggestions.proposals} unavailable={suggestions.unavailable} onApply={apply} disabled={false} />
               <FindingsPanel report={report} selected={selected === -1 ? null : selected}
                 onSelect={(i) => setSelectedId(i === null ? null : findingId(report.findings[i]!))} />
             </>

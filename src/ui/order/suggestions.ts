@@ -72,10 +72,10 @@ function findingText(f: Proposal['findingsAppear'][number]): string {
 }
 
 /** The report's proposals in the panel's shape, and the kinds the solver could not propose. */
-export function readSuggestions(report: Report): { proposals: Suggestion[]; unavailable: Unavailable[] } {
+export function readSuggestions(report: Report, suggestions: Report['suggestions'] = report.suggestions): { proposals: Suggestion[]; unavailable: Unavailable[] } {
   const proposals: Suggestion[] = [];
   const unavailable: Unavailable[] = [];
-  for (const s of report.suggestions ?? []) {
+  for (const s of suggestions ?? []) {
     if (s.status === 'unavailable') {
       unavailable.push({ id: s.kind, message: s.message, notes: s.notes });
       continue;

@@ -104,14 +104,16 @@ export interface Workspace {
   figures: ShownReport | null;
   /** True when the figures are from an earlier, valid state of the order. */
   stale: boolean;
+  /** The solver's proposals for the committed order (kept while a cell is typed into); null when it is invalid. */
+  suggestions: Report['suggestions'] | null;
   problems: ProblemIndex;
   undoLabel: string | null;
   redoLabel: string | null;
   actions: WorkspaceActions;
 }
 
-function check(doc: OrderDoc, catalog: Catalog, policy: Policy) {
-  const evaluation = checkOrder(toOrderFile(doc.order), catalog, policy);
+function check(doc: OrderDoc, catalog: Catalog, policy: Policy, suggestions: boolean) {
+  const evaluation = checkOrder(toOrderFile(doc.order), catalog, policy, { suggestions });
   const shown: ShownReport | null = evaluation.ok ? { report: evaluation.value.report, keys: doc.keys, docId: doc.docId } : null;
   return { evaluation, shown };
 }
@@ -122,10 +124,11 @@ export function useOrderWorkspace(initial: () => OrderDoc, catalog: Catalog, pol
   const { history, pending } = state;
   const doc = history.present;
   const shown = useMemo(() => withPending(doc, pending), [doc, pending]);
-  // The committed order is checked once per edit; while a cell is being typed into, the order with the
-  // typed text is checked too, and shown when it is valid.
-  const committed = useMemo(() => check(doc, catalog, policy), [doc, catalog, policy]);
-  const typed = useMemo(() => (shown === doc ? committed : check(shown, catalog, policy)), [shown, doc, committed, catalog, policy]);
+  // The committed order is checked once per edit, with the solver's suggestions; while a cell is being
+  // typed into, the order with the typed text is checked too (without the solver, so a keystroke stays
+  // fast), and shown when it is valid.
+  const committed = useMemo(() => check(doc, catalog, policy, true), [doc, catalog, policy]);
+  const typed = useMemo(() => (shown === doc ? committed : check(shown, catalog, policy, false)), [shown, doc, committed, catalog, policy]);
   // The last valid figures come from committed states only, so an invalid keystroke falls back to what
   // the order says, not to a half-typed number.
   const [lastValid, setLastValid] = useState<ShownReport | null>(committed.shown);
@@ -146,6 +149,7 @@ export function useOrderWorkspace(initial: () => OrderDoc, catalog: Catalog, pol
     doc, shown, pending,
     figures: typed.shown ?? fallback,
     stale: typed.shown === null,
+    suggestions: committed.shown ? committed.shown.report.suggestions ?? [] : null,
     problems,
     undoLabel: undoLabel(history), redoLabel: redoLabel(history),
     actions,
