@@ -95,6 +95,15 @@ describe('importing orders', () => {
     expect(await commitImport(store, env, again, { acceptPartial: false, by: null })).toEqual({ ok: true, value: { created: 0, newVersions: 0, unchanged: 1 } });
   });
 
+  it('refuses a file that would give a saved order another patient', async () => {
+    await saveVersion(store, env, { orderKey: null, file: demo(0), by: 'AB' });
+    const other = demo(0);
+    (other.patient as JsonObject).id = 'MRN-000001';
+    const p = await plan(JSON.stringify(other));
+    expect(p.valid).toEqual([]);
+    expect(p.invalid).toMatchObject([{ where: '', orderId: 'MPH-2026-0412', problems: [{ path: 'patient.id', message: expect.stringContaining('saved order MPH-2026-0412 is for patient "MRN-448210"') }] }]);
+  });
+
   it('refuses the same order id twice in one file', async () => {
     const p = await plan(JSON.stringify([demo(0), demo(0)]));
     expect(p.valid).toHaveLength(1);

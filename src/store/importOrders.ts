@@ -7,7 +7,7 @@ import { ordersFromText } from '../cli/inputs.ts';
 import { sameOrder } from './diff.ts';
 import { checkAndStamp, type CheckEnv } from './check.ts';
 import { read, write, type Store } from './db.ts';
-import { summaryOf } from './orders.ts';
+import { otherPatient, summaryOf } from './orders.ts';
 import type { Layout } from './restore.ts';
 import type { JsonObject, OrderRecord, OrderVersion } from './types.ts';
 import { validOrderFile } from './validate.ts';
@@ -79,6 +79,11 @@ export function planImportWith(text: string, ctx: ImportContext): ImportPlan {
     }
     seen.set(id, where);
     const latest = ctx.latestById.get(id);
+    const patientChange = latest ? otherPatient(summaryOf(latest), summaryOf(checked.value.file).patientId) : null;
+    if (patientChange) {
+      invalid.push({ where, orderId: id, problems: [{ path: 'patient.id', message: patientChange }] });
+      continue;
+    }
     const action = latest === undefined ? 'new' : sameOrder(latest, checked.value.file) ? 'unchanged' : 'new-version';
     valid.push({ where, orderId: id, file: checked.value.file, from: checked.value.from, notes: checked.value.notes, action });
   }
@@ -133,6 +138,8 @@ export async function commitImport(store: Store, env: CheckEnv, plan: ImportPlan
       if (existing) {
         const latest = await versions.get([existing.key, existing.latest]);
         if (latest && sameOrder(latest.file, item.file)) { done.unchanged += 1; continue; }
+        const patientChange = otherPatient(existing, summaryOf(item.file).patientId);
+        if (patientChange) return { ok: false, problems: [{ path: `${item.where} patient.id`.trim(), message: patientChange }] };
       }
       const key = existing?.key ?? store.newKey();
       const n = (existing?.latest ?? 0) + 1;

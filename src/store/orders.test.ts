@@ -87,6 +87,17 @@ describe('saving orders with every version', () => {
   });
 });
 
+describe('a saved order keeps its patient', () => {
+  it('refuses a version for another patient id, and changes nothing', async () => {
+    const first = await mustSave(demo(0));
+    const other = demo(0);
+    (other.patient as JsonObject).id = 'MRN-000001';
+    const r = await saveVersion(store, env, { orderKey: first.record.key, file: other, by: 'CD' });
+    expect(r).toEqual({ ok: false, problems: [{ path: 'patient.id', message: 'is "MRN-000001", but saved order MPH-2026-0412 is for patient "MRN-448210"; another patient\'s bag is a new order (new order id)' }] });
+    expect(await store.db.count('versions')).toBe(1);
+  });
+});
+
 describe('sign-off locks a version', () => {
   it('signs the latest version with initials and time; a later change makes a new unsigned version', async () => {
     const first = await mustSave(demo(0));

@@ -30,6 +30,15 @@ function fail<T>(path: string, message: string): Result<T> {
   return { ok: false, problems: [{ path, message }] };
 }
 
+/**
+ * A saved order keeps its patient: a version for another patient id is refused (a different patient's
+ * bag is a new order). Returns the message, or null when the patient is the same (or was never given).
+ */
+export function otherPatient(record: Pick<OrderRecord, 'orderId' | 'patientId'>, patientId: string): string | null {
+  if (record.patientId === '' || patientId === record.patientId) return null;
+  return `is "${patientId}", but saved order ${record.orderId} is for patient "${record.patientId}"; another patient's bag is a new order (new order id)`;
+}
+
 /** Initials as written on a sign-off: 1–5 letters, stored upper-case. */
 export function normaliseInitials(input: string): Result<string> {
   const initials = input.trim().toUpperCase();
@@ -123,6 +132,8 @@ export async function saveVersion(store: Store, env: CheckEnv, input: SaveInput)
     if (existing) {
       const latest = await versions.get([existing.key, existing.latest]);
       if (latest && sameOrder(latest.file, file)) return { ok: true, value: { record: existing, version: latest, created: false, problems } };
+      const patientChange = otherPatient(existing, summary.patientId);
+      if (patientChange) return fail<Saved>('patient.id', patientChange);
     }
     const key = existing?.key ?? store.newKey();
     const n = (existing?.latest ?? 0) + 1;

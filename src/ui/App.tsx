@@ -1,96 +1,131 @@
-import { useMemo, useState } from 'react';
-import { formatProblem } from '../core/problems.ts';
-import { DEMO_ORDERS } from '../defaults.ts';
-import { evaluateFile } from '../store/check.ts';
+import { useEffect, useMemo, useRef, useState } from 'react';
+import type { Catalog } from '../core/catalog.ts';
+import type { Policy } from '../core/policy.ts';
+import type { Problem } from '../core/problems.ts';
+import { DEFAULT_CATALOG, DEFAULT_FILES, DEFAULT_POLICY, DEMO_ORDERS } from '../defaults.ts';
 import type { JsonObject } from '../store/types.ts';
+import { docFromFile, newOrderDoc, toOrderFile, type OrderDoc } from './order/draft.ts';
+import { useOrderWorkspace } from './order/useOrderWorkspace.ts';
+import { useUndoKeys } from './order/useUndoKeys.ts';
 import { Caution } from './components/Caution.tsx';
-import { OrderStrip } from './components/OrderStrip.tsx';
-import { LinesView } from './components/LinesView.tsx';
-import { OsmolarityPanel } from './components/OsmolarityPanel.tsx';
-import { TotalsPanel } from './components/TotalsPanel.tsx';
-import { FindingsPanel } from './components/FindingsPanel.tsx';
+import { TopBar, type View } from './components/TopBar.tsx';
+import { VerdictBar } from './components/VerdictBar.tsx';
+import { ProblemsList } from './components/ProblemsList.tsx';
+import { OrderView } from './OrderView.tsx';
+import { CatalogView } from './catalog/CatalogView.tsx';
+import { PolicyView } from './policy/PolicyView.tsx';
 import { OpenOrderBar } from './saved/OpenOrderBar.tsx';
 import { QaLogPanel } from './saved/QaLogPanel.tsx';
 import { RefFilesPanel } from './saved/RefFilesPanel.tsx';
 import { SavedOrdersView } from './saved/SavedOrdersView.tsx';
 import { useSavedWork } from './saved/SavedWorkProvider.tsx';
-import { ShellAmounts } from './saved/ShellAmounts.tsx';
 import { StorageNotice } from './saved/StorageNotice.tsx';
 import { useSavedOrder } from './saved/useSavedOrder.ts';
 import { VersionHistory } from './saved/VersionHistory.tsx';
 
-type View = 'order' | 'saved' | 'qa';
-const demoFile = (key: string) => structuredClone(DEMO_ORDERS.find((d) => d.key === key)?.file ?? {}) as JsonObject;
-
-/** The app: pick an order, see the bag the engine computes and what holds it back; the browser keeps the work. */
-export function App() {
-  const work = useSavedWork();
-  if (work.status === 'loading') return <div className="app"><p className="none">Opening the work saved in this browser…</p></div>;
-  return <Shell />;
+function demoDoc(key: string): OrderDoc | null {
+  const demo = DEMO_ORDERS.find((d) => d.key === key);
+  const r = demo ? docFromFile(demo.file) : null;
+  return r?.ok ? r.value : null;
 }
 
-function Shell() {
+/** The app: the order workspace, saved orders, the catalog and policy, and the QA log, kept in this browser. */
+export function App() {
   const work = useSavedWork();
-  const env = work.env;
-  const [demoKey, setDemoKey] = useState(work.restored ? '' : (DEMO_ORDERS[0]?.key ?? ''));
-  const [first] = useState<JsonObject>(() => work.restored?.file ?? demoFile(DEMO_ORDERS[0]?.key ?? ''));
+  if (work.status === 'loading') return <div className="app"><p className="none" role="status">Opening the work saved in this browser…</p></div>;
+  return <Workspace />;
+}
+
+function Workspace() {
+  const work = useSavedWork();
   const [view, setView] = useState<View>('order');
+  // The catalog and policy in force are the browser's (the shipped ones when it keeps none). An edit the
+  // browser could not keep (storage full) stays here, in memory, and the storage message says so.
+  const [catalogEdit, setCatalogEdit] = useState<{ file: unknown; catalog: Catalog } | null>(null);
+  const [policyEdit, setPolicyEdit] = useState<{ file: unknown; policy: Policy } | null>(null);
+  const catalog = catalogEdit ?? { file: work.refFiles?.catalog ?? DEFAULT_FILES.catalog, catalog: work.env?.catalog ?? DEFAULT_CATALOG };
+  const policy = policyEdit ?? { file: work.refFiles?.policy ?? DEFAULT_FILES.policy, policy: work.env?.policy ?? DEFAULT_POLICY };
+  const [restored] = useState(() => { const r = work.restored ? docFromFile(work.restored.file) : null; return r?.ok ? r.value : null; });
+  const firstKey = DEMO_ORDERS[0]?.key ?? '';
+  const [demoKey, setDemoKey] = useState(restored ? '' : firstKey);
+  const [openProblems, setOpenProblems] = useState<Problem[]>([]);
+  const ws = useOrderWorkspace(() => restored ?? demoDoc(firstKey) ?? newOrderDoc(), catalog.catalog, policy.policy);
+  useUndoKeys(ws.pending !== null, ws.actions, view === 'order');
   const [initials, setInitials] = useState('');
-  const saved = useSavedOrder(initials.trim() === '' ? null : initials.trim().toUpperCase());
-  const onScreen = saved.current ?? first;
-  const result = useMemo(() => (env ? evaluateFile(onScreen, env) : null), [onScreen, env]);
-  const pickDemo = (key: string) => { setDemoKey(key); saved.detach(demoFile(key)); setView('order'); };
-  const opened = () => { setDemoKey(''); setView('order'); };
+  const by = initials.trim().toUpperCase() || null;
+  const saved = useSavedOrder(by);
+
+  // Which saved order each opened document belongs to, so undo/redo across an "open" keeps the draft
+  // with the right order; and the autosave: every committed edit is kept in the browser at once.
+  const owners = useRef(new Map<number, string | null>(restored ? [[restored.docId, work.restored?.orderKey ?? null]] : []));
+  const kept = useRef(ws.doc);
+  const file = useMemo(() => toOrderFile(ws.doc.order) as JsonObject, [ws.doc]);
+  const { edited, follow } = saved;
+  useEffect(() => {
+    if (ws.doc === kept.current) return;
+    kept.current = ws.doc;
+    const owner = owners.current.get(ws.doc.docId);
+    if (owner !== undefined) follow(owner);
+    edited(file);
+  }, [ws.doc, file, edited, follow]);
+
+  const open = (doc: OrderDoc, label: string, key: string, owner: string | null = null) => {
+    owners.current.set(doc.docId, owner);
+    setOpenProblems([]);
+    setDemoKey(key);
+    setView('order');
+    ws.actions.edit(label, () => doc);
+  };
+  const openSaved = (savedFile: JsonObject, key: string) => {
+    const r = docFromFile(savedFile);
+    if (r.ok) open(r.value, `Open saved order ${r.value.order.id}`, '', key);
+    else setOpenProblems(r.problems);
+  };
+  const replaceCatalog = (file: unknown, c: Catalog) => {
+    setCatalogEdit({ file, catalog: c });
+    void work.saveRef('catalog', file, 'edited').then((r) => { if (r.ok) setCatalogEdit(null); else work.report(r.problems); });
+  };
+  const replacePolicy = (file: unknown, p: Policy) => {
+    setPolicyEdit({ file, policy: p });
+    void work.saveRef('policy', file, 'edited').then((r) => { if (r.ok) setPolicyEdit(null); else work.report(r.problems); });
+  };
+  const report = ws.figures?.report ?? null;
+
   return (
     <div className="app">
-      <header className="top">
-        <div className="brand"><span className="mark" aria-hidden="true" />Osmocount<span className="tag">PN admixture check</span></div>
-        <nav className="views saved" aria-label="Views">
-          <button type="button" aria-current={view === 'order' ? 'page' : undefined} onClick={() => setView('order')}>Order</button>
-          <button type="button" aria-current={view === 'saved' ? 'page' : undefined} onClick={() => setView('saved')}>Saved orders</button>
-          <button type="button" aria-current={view === 'qa' ? 'page' : undefined} onClick={() => setView('qa')}>QA log</button>
-        </nav>
-        <label className="picker">
-          Demo order
-          <select value={demoKey} onChange={(e) => pickDemo(e.target.value)}>
-            {demoKey === '' ? <option value="">—</option> : null}
-            {DEMO_ORDERS.map((d) => <option key={d.key} value={d.key}>{d.title}</option>)}
-          </select>
-        </label>
-        <span className="context">Catalog: {env?.catalog.name} · Policy: {env?.policy.name}</span>
-      </header>
+      <div className="sticky-top">
+        <TopBar
+          view={view} onView={setView} demoKey={demoKey}
+          onDemo={(key) => { const d = demoDoc(key); if (d) open(d, `Open demo order ${key}`, key); }}
+          onNew={() => open(newOrderDoc(), 'New order', '')}
+          onOpen={(json, name) => {
+            const r = docFromFile(json);
+            if (r.ok) open(r.value, `Open ${name}`, '');
+            else setOpenProblems(r.problems);
+          }}
+          onOpenProblems={setOpenProblems}
+          undoLabel={ws.undoLabel} redoLabel={ws.redoLabel} onUndo={ws.actions.undo} onRedo={ws.actions.redo}
+        />
+        {view === 'order' ? <VerdictBar report={report} stale={ws.stale} problemCount={ws.problems.count} /> : null}
+      </div>
       <Caution />
       <StorageNotice />
-      {view === 'saved' ? (
-        <main><SavedOrdersView api={saved} by={initials.trim().toUpperCase() || null} onOpened={opened} /><RefFilesPanel /></main>
-      ) : view === 'qa' ? (
-        <main><QaLogPanel by={initials.trim().toUpperCase() || null} /></main>
-      ) : (
-        <main>
-          <OpenOrderBar api={saved} file={onScreen} verdict={result?.ok ? result.value.verdict : null} initials={initials} onInitials={setInitials} />
-          {env ? <ShellAmounts file={onScreen} catalog={env.catalog} onCommit={(next) => saved.edited(next)} /> : null}
-          {result === null ? null : result.ok ? (
-            <>
-              <OrderStrip report={result.value.report} />
-              <div className="grid">
-                <div className="col-main">
-                  <LinesView report={result.value.report} />
-                  <TotalsPanel report={result.value.report} />
-                </div>
-                <div className="col-side">
-                  <OsmolarityPanel report={result.value.report} />
-                  <FindingsPanel report={result.value.report} />
-                </div>
-              </div>
-            </>
-          ) : (
-            <section className="panel problems" role="alert">
-              <h2>This order cannot be checked</h2>
-              <ul>{result.problems.map((p, i) => <li key={i}>{formatProblem(p)}</li>)}</ul>
-            </section>
-          )}
-          {saved.saved && env ? <VersionHistory versions={saved.saved.versions} catalog={env.catalog} /> : null}
+      <p className="context">Catalog: {catalog.catalog.name} · Policy: {policy.policy.name}</p>
+      <ProblemsList problems={openProblems} title="The file could not be opened as an order" />
+      {view === 'order' ? (
+        <main aria-label="Order workspace">
+          <OpenOrderBar api={saved} file={file} verdict={ws.figures && !ws.stale ? ws.figures.report.verdict : null} initials={initials} onInitials={setInitials} />
+          <OrderView ws={ws} catalog={catalog.catalog} />
+          {saved.saved ? <VersionHistory versions={saved.saved.versions} catalog={catalog.catalog} /> : null}
         </main>
+      ) : view === 'saved' ? (
+        <main aria-label="Saved orders"><SavedOrdersView api={saved} by={by} onOpened={openSaved} /></main>
+      ) : view === 'qa' ? (
+        <main aria-label="QA log"><QaLogPanel by={by} /></main>
+      ) : view === 'catalog' ? (
+        <><RefFilesPanel only="catalog" /><CatalogView catalog={catalog.catalog} file={catalog.file} onReplace={replaceCatalog} /></>
+      ) : (
+        <><RefFilesPanel only="policy" /><PolicyView policy={policy.policy} file={policy.file} onReplace={replacePolicy} /></>
       )}
     </div>
   );

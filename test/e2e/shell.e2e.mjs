@@ -24,7 +24,9 @@ export const tests = [
     const { page, context, problems } = await h.newPage();
     await page.goto(h.baseUrl);
     await page.getByLabel('Demo order').selectOption('preterm-neonate');
-    await page.getByText('Preterm neonate', { exact: true }).waitFor();
+    // The order header shows the opened order's age group in its own field.
+    equal(await page.getByLabel('Age group').inputValue(), 'preterm-neonate', 'age group of the opened order');
+    await page.getByText('8.33 mg/kg/min', { exact: true }).waitFor();
     const body = await page.locator('body').innerText();
     ok(body.includes('3.500 g/kg'), 'amino acids per kg');
     ok(body.includes('8.33 mg/kg/min'), 'GIR');

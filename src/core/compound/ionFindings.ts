@@ -1,9 +1,8 @@
 import { fmt } from '../format.ts';
 import { verdictOf, type Finding } from '../findings.ts';
-import { toReport } from '../report.ts';
 import type { Catalog } from '../catalog.ts';
 import type { Policy } from '../policy.ts';
-import type { Evaluation } from '../evaluate.ts';
+import { makeEvaluation, type Evaluation } from '../evaluation.ts';
 import { ION_INFO, ION_KEYS } from './ions.ts';
 import type { CompoundResult } from './compoundOrder.ts';
 
@@ -43,6 +42,6 @@ export function ionFindings(r: CompoundResult): Finding[] {
 export function withIonFindings(evaluation: Evaluation, r: CompoundResult, catalog: Catalog, policy: Policy): Evaluation {
   const findings = [...evaluation.findings, ...ionFindings(r)];
   const verdict = verdictOf(findings);
-  return { ...evaluation, findings, verdict, report: toReport(evaluation.bag, findings, verdict, catalog, policy) };
+  return makeEvaluation({ order: evaluation.order, bag: evaluation.bag, findings, verdict, suggestions: evaluation.suggestions }, catalog, policy);
 }
 

@@ -10,7 +10,7 @@ const signed = (n: number) => (n > 0 ? `+${show(n, 1)}` : show(n, 1));
 export function QaSummaryTable({ rows }: { rows: readonly SummaryRow[] }) {
   if (rows.length === 0) return <p className="none">No readings yet: record a measured osmolality for a saved bag.</p>;
   return (
-    <table className="lines" aria-label="Bias by formula type">
+    <table className="saved-table" aria-label="Bias by formula type">
       <thead>
         <tr>
           <th scope="col">Formula</th><th scope="col">Calculated figure</th><th scope="col" className="num">Bags</th>
@@ -40,7 +40,7 @@ export function QaReadingsTable({ rows, onRemove }: { rows: readonly ComparisonR
   if (rows.length === 0) return null;
   const keys = [...new Map(rows.flatMap((r) => r.figures.map((f) => [f.key, f.label] as const))).entries()];
   return (
-    <table className="lines" aria-label="Readings">
+    <table className="saved-table" aria-label="Readings">
       <thead>
         <tr>
           <th scope="col">Measured on</th><th scope="col">Bag</th><th scope="col">Formula</th><th scope="col" className="num">Measured</th>

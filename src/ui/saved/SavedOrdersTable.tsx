@@ -16,7 +16,7 @@ interface Props {
 /** The saved orders as rows: id, patient, when, version, verdict, sign-off, and what can be done. */
 export function SavedOrdersTable({ orders, openKey, selected, onSelect, onOpen, onCopy, onDelete }: Props) {
   return (
-    <table className="lines">
+    <table className="saved-table">
       <thead>
         <tr>
           <th scope="col"><span className="sr-only">Select</span></th>

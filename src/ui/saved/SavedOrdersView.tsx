@@ -14,14 +14,15 @@ import { useSavedWork } from './SavedWorkProvider.tsx';
 import type { SavedOrderApi } from './useSavedOrder.ts';
 import './saved.css';
 
-function megabytes(bytes: number): string {
-  return `${(bytes / 1_000_000).toFixed(1)} MB`;
+/** Storage sizes as people read them: "0.1 MB", "10.7 GB" (decimal units, as browsers report them). */
+function size(bytes: number): string {
+  return bytes >= 1e9 ? `${(bytes / 1e9).toFixed(1)} GB` : `${(bytes / 1e6).toFixed(1)} MB`;
 }
 
 /** Where the saved work lives and whether the browser may clear it. */
 function StorageLine() {
   const { storage } = useSavedWork();
-  const used = storage.usage !== null && storage.quota !== null ? ` Using ${megabytes(storage.usage)} of the ${megabytes(storage.quota)} this browser allows the site.` : '';
+  const used = storage.usage !== null && storage.quota !== null ? ` Using ${size(storage.usage)} of the ${size(storage.quota)} this browser allows the site.` : '';
   const kept = storage.persisted === true
     ? 'This browser keeps the saved work even when its disk runs short.'
     : 'This browser may clear saved work when its disk runs short: export orders you need to keep.';
@@ -31,7 +32,7 @@ function StorageLine() {
 type Pending = { kind: 'copy'; record: OrderRecord; id: string } | { kind: 'delete'; record: OrderRecord } | null;
 
 /** Saved orders: search, open, copy for the next bag, delete (confirmed), export and import. */
-export function SavedOrdersView({ api, by, onOpened }: { api: SavedOrderApi; by: string | null; onOpened(file: JsonObject): void }) {
+export function SavedOrdersView({ api, by, onOpened }: { api: SavedOrderApi; by: string | null; onOpened(file: JsonObject, orderKey: string): void }) {
   const { store, touch, report } = useSavedWork();
   const [query, setQuery] = useState<OrderQuery>({});
   const { orders, total } = useOrderList(query);
@@ -40,12 +41,12 @@ export function SavedOrdersView({ api, by, onOpened }: { api: SavedOrderApi; by:
   const [importing, setImporting] = useState(false);
   const [problems, setProblems] = useState<Problem[]>([]);
 
-  const open = async (key: string) => { const file = await api.open(key); if (file) onOpened(file); };
+  const open = async (key: string) => { const file = await api.open(key); if (file) onOpened(file, key); };
   const startCopy = async (record: OrderRecord) => setPending({ kind: 'copy', record, id: await api.suggestId(record.orderId) });
   const copy = async (record: OrderRecord, id: string) => {
     const r = await api.copy(record.key, id, by);
     setProblems(r.ok ? [] : r.problems);
-    if (r.ok) { setPending(null); onOpened(r.value); }
+    if (r.ok) { setPending(null); onOpened(r.value.file, r.value.orderKey); }
   };
   const remove = async (record: OrderRecord) => {
     if (!store) return;

@@ -57,7 +57,18 @@ async function storageInfo(): Promise<StorageInfo> {
   }
 }
 
-const SavedWorkContext = createContext<SavedWork | null>(null);
+const NO_STORAGE: Problem[] = [{ path: '(storage)', message: 'the browser’s storage is not open' }];
+
+/** Saved work outside a provider (component tests of other parts): nothing stored, nothing shown. */
+const DETACHED: SavedWork = {
+  status: 'unavailable', store: null, env: null, refFiles: null, restored: null, problems: [],
+  report: () => undefined, dismiss: () => undefined,
+  saveRef: async () => ({ ok: false, problems: NO_STORAGE }),
+  resetRef: async () => ({ ok: false, problems: NO_STORAGE }),
+  storage: { persisted: null, usage: null, quota: null }, revision: 0, touch: () => undefined,
+};
+
+const SavedWorkContext = createContext<SavedWork>(DETACHED);
 
 /** Open the browser's storage once for the app below it. `dbName` lets tests use their own database. */
 export function SavedWorkProvider({ dbName = DB_NAME, children }: { dbName?: string; children: ReactNode }) {
@@ -109,13 +120,13 @@ export function SavedWorkProvider({ dbName = DB_NAME, children }: { dbName?: str
     if (loaded.problems.length > 0) setProblems(loaded.problems);
   }, []);
   const saveRef = useCallback(async (kind: RefKind, file: unknown, origin: FileOrigin): Promise<Result<ActiveFile>> => {
-    if (!store) return { ok: false, problems: [{ path: '(storage)', message: 'the browser’s storage is not available' }] };
+    if (!store) return { ok: false, problems: NO_STORAGE };
     const r = await saveRefFile(store, kind, file, origin);
     if (r.ok) await reload(store);
     return r;
   }, [store, reload]);
   const resetRef = useCallback(async (kind: RefKind): Promise<Result<void>> => {
-    if (!store) return { ok: false, problems: [{ path: '(storage)', message: 'the browser’s storage is not available' }] };
+    if (!store) return { ok: false, problems: NO_STORAGE };
     const r = await resetRefFile(store, kind);
     if (r.ok) await reload(store);
     return r;
@@ -128,9 +139,7 @@ export function SavedWorkProvider({ dbName = DB_NAME, children }: { dbName?: str
   return <SavedWorkContext.Provider value={value}>{children}</SavedWorkContext.Provider>;
 }
 
-/** The saved work of the app (inside SavedWorkProvider). */
+/** The saved work of the app; outside a SavedWorkProvider, a detached one (nothing is stored). */
 export function useSavedWork(): SavedWork {
-  const ctx = useContext(SavedWorkContext);
-  if (!ctx) throw new Error('useSavedWork must be used inside <SavedWorkProvider>');
-  return ctx;
+  return useContext(SavedWorkContext);
 }

@@ -37,10 +37,15 @@ export interface SavedOrderApi {
    * is also kept as the draft (the workspace's autosave effect does that itself).
    */
   detach(file?: JsonObject): void;
+  /**
+   * The document on screen belongs to this saved order (null: to none). Undo and redo can step back
+   * across an "open": the app says whose document is on screen, and the draft follows.
+   */
+  follow(orderKey: string | null): void;
   /** A saved order was deleted: if it is the open one, the order on screen becomes unsaved. */
   forget(orderKey: string): void;
-  /** Copy a saved order to a new one and open it; returns the copy's file. */
-  copy(orderKey: string, newId: string, by: string | null): Promise<Result<JsonObject>>;
+  /** Copy a saved order to a new one and open it; returns the copy's file and storage key. */
+  copy(orderKey: string, newId: string, by: string | null): Promise<Result<{ file: JsonObject; orderKey: string }>>;
   /** A free id for the next day's copy of an order id. */
   suggestId(orderId: string): Promise<string>;
 }
@@ -149,6 +154,11 @@ export function useSavedOrder(initials: string | null): SavedOrderApi {
     if (file) edited(file);
   }, [edited]);
 
+  const follow = useCallback((orderKey: string | null) => {
+    if (openKey.current === orderKey) return;
+    void reloadSaved(orderKey);
+  }, [reloadSaved]);
+
   const forget = useCallback((orderKey: string) => {
     if (openKey.current !== orderKey) return;
     openKey.current = null;
@@ -156,14 +166,14 @@ export function useSavedOrder(initials: string | null): SavedOrderApi {
     setSaved(null);
   }, []);
 
-  const copy = useCallback(async (orderKey: string, newId: string, by: string | null): Promise<Result<JsonObject>> => {
+  const copy = useCallback(async (orderKey: string, newId: string, by: string | null): Promise<Result<{ file: JsonObject; orderKey: string }>> => {
     if (!store || !env) return notReady();
     const r = await copyOrder(store, env, orderKey, newId, by);
     if (!r.ok) { if (r.problems.some((p) => p.path === '(storage)')) report(r.problems); return r; }
     await reloadSaved(r.value.record.key);
     edited(r.value.version.file);
     touch();
-    return { ok: true, value: r.value.version.file };
+    return { ok: true, value: { file: r.value.version.file, orderKey: r.value.record.key } };
   }, [store, env, report, reloadSaved, edited, touch]);
 
   const suggestId = useCallback(async (orderId: string) => {
@@ -175,7 +185,7 @@ export function useSavedOrder(initials: string | null): SavedOrderApi {
     ready: store !== null && env !== null,
     saved, latest, current,
     unsaved: current !== null && (latest === null || !sameOrder(latest.file, current)),
-    autosave, changes, edited, save, sign, open, detach, forget, copy, suggestId,
+    autosave, changes, edited, save, sign, open, detach, follow, forget, copy, suggestId,
   };
 }
 
