@@ -156,6 +156,47 @@ export const tests = [
     await context.close();
   }],
 
+  ['next day: copy yesterday\'s order, change two lines, verify; the old order says the catalog changed since', async (h) => {
+    const { page, context, problems } = await h.newPage();
+    await watchCsp(page);
+    await page.goto(h.baseUrl);
+    await ready(page);
+    await page.getByLabel('Your initials').fill('AB');
+    await page.getByRole('button', { name: 'Save and sign off as version 1' }).click();
+    await page.getByText(/Verified by AB/).first().waitFor();
+    // Journey 6: the pharmacy's amino-acid stock changes its labelled osmolarity (an edit for the test).
+    await page.getByRole('button', { name: 'Catalog', exact: true }).click();
+    const catalog = JSON.parse(readFileSync('data/catalog.json', 'utf8'));
+    catalog.products.find((p) => p.id === 'amino-acids-10').mOsmPerMl = 0.86;
+    await page.getByLabel('Import a catalog file').setInputFiles({ name: 'catalog.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(catalog)) });
+    await page.getByText('imported into this browser').waitFor();
+    // Journey 5: copy yesterday's bag, change two lines, verify again.
+    await page.getByRole('button', { name: 'Saved orders' }).click();
+    await page.getByRole('button', { name: 'Copy for the next bag: MPH-2026-0412' }).click();
+    equal(await page.getByLabel('New order id').inputValue(), 'MPH-2026-0413', 'suggested id');
+    await page.getByRole('button', { name: 'Copy and open' }).click();
+    await page.getByLabel('Order ID', { exact: true }).waitFor();
+    equal(await page.getByLabel('Order ID', { exact: true }).inputValue(), 'MPH-2026-0413', 'the copy is open');
+    await commitAmount(page, DEXTROSE, '130');
+    await commitAmount(page, 'Amount, line 4, Sodium chloride 23.4% injection (4 mEq/mL)', '64');
+    await page.waitForFunction(() => /Version 1 · unsaved changes/.test(globalThis.document.querySelector('[data-testid="saved-state"]')?.textContent ?? ''));
+    await page.getByRole('button', { name: 'Save and sign off as version 2' }).click();
+    await page.getByText(/Version 2 is locked/).waitFor();
+    const history = await page.getByRole('region', { name: 'Version history' }).innerText();
+    ok(history.includes('Dextrose 70% injection, line 2, amount: 150 → 130') && history.includes('Sodium chloride 23.4% injection (4 mEq/mL), line 4, amount: 60 → 64'), `two lines changed: ${history}`);
+    ok(history.includes('copied from another order by AB'), `copy recorded: ${history}`);
+    // Reopen yesterday's order: it was checked against the previous catalog.
+    await page.getByRole('button', { name: 'Saved orders' }).click();
+    await page.getByRole('button', { name: 'Open MPH-2026-0412' }).click();
+    const notice = page.getByRole('region', { name: 'Changed since checked' });
+    await notice.waitFor();
+    const text = await notice.innerText();
+    ok(/Version 1 was checked against an earlier catalog/.test(text) && /amino-acids-10 mOsmPerMl: [\d.]+ → 0\.86/.test(text), `changed-since notice: ${text}`);
+    await notice.screenshot({ path: `${ARTIFACTS}/store-changed-since.png` });
+    clean(problems);
+    await context.close();
+  }],
+
   ['importing a bad file lists its problems and leaves the stored orders unchanged', async (h) => {
     const { page, context, problems } = await h.newPage();
     await watchCsp(page);
