@@ -57,20 +57,20 @@ function Workspace() {
 
   // Which saved order each opened document belongs to, so undo/redo across an "open" keeps the draft
   // with the right order; and the autosave: every committed edit is kept in the browser at once.
-  const owners = useRef(new Map<number, string | null>(restored ? [[restored.docId, work.restored?.orderKey ?? null]] : []));
+  const [owners] = useState(() => new Map<number, string | null>([[ws.doc.docId, restored ? (work.restored?.orderKey ?? null) : null]]));
   const kept = useRef(ws.doc);
   const file = useMemo(() => toOrderFile(ws.doc.order) as JsonObject, [ws.doc]);
   const { edited, follow } = saved;
   useEffect(() => {
     if (ws.doc === kept.current) return;
     kept.current = ws.doc;
-    const owner = owners.current.get(ws.doc.docId);
+    const owner = owners.get(ws.doc.docId);
     if (owner !== undefined) follow(owner);
     edited(file);
-  }, [ws.doc, file, edited, follow]);
+  }, [ws.doc, file, edited, follow, owners]);
 
   const open = (doc: OrderDoc, label: string, key: string, owner: string | null = null) => {
-    owners.current.set(doc.docId, owner);
+    owners.set(doc.docId, owner);
     setOpenProblems([]);
     setDemoKey(key);
     setView('order');
