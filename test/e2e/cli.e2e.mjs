@@ -45,7 +45,7 @@ export const tests = [
       ok(held.some((x) => x.order === 'HELD-CSV' && x.verdict === 'block' && x.osmolarity.reported > 900), `held orders: ${r.stdout}`);
       ok(held.every((x) => x.verdict === 'block'), 'only held orders printed');
       ok(/^Summary: 4 orders checked in [\d.]+ s$/m.test(r.stderr), `summary on stderr: ${r.stderr}`);
-      ok(r.stderr.includes("HOLD  osmolarity-peripheral"), "findings by code");
+      ok(r.stderr.includes('HOLD  osmolarity-peripheral'), 'findings by code');
     } finally {
       await rm(dir, { recursive: true, force: true });
     }
