@@ -25,13 +25,13 @@ export const CHECK_USAGE = `  osmocount check PATH... [--catalog FILE] [--policy
       --ndjson          reports as NDJSON, one line per order, written as they are checked
                         (with --json or --ndjson the summary goes to stderr, so stdout
                         stays valid JSON)
-      --only VERDICTS   print only orders with these verdicts (pass, warn, block; comma-
-                        separated or repeated); the summary still counts every order
+      --only VERDICTS   print only orders with these verdicts: pass, warn, block (or hold),
+                        comma-separated or repeated; the summary still counts every order
       --fail-on LEVEL   exit 1 when any order is at this verdict or worse: warn, or block
                         (the default)
-      Exit 0: no order reached --fail-on; 1: some order did; 2: an input was invalid (each
-      problem is printed on stderr as file: where: path: message, after which every valid
-      order is still checked and reported).`;
+      Exit 0: no order reached --fail-on; 1: some order did; 2: an input was invalid. Each
+      problem is printed on stderr as file: where: path: message (where = [index], line N
+      or row N), and every valid order is still checked and reported.`;
 
 const VERDICT_NAMES: Readonly<Record<string, Verdict>> = { pass: 'pass', warn: 'warn', block: 'block', hold: 'block' };
 const RANK: Readonly<Record<Verdict, number>> = { pass: 0, warn: 1, block: 2 };
