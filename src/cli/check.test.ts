@@ -119,8 +119,9 @@ describe('osmocount check over a batch', () => {
     expect(text.trimEnd().endsWith('PN is a high-alert medication.')).toBe(true);
     expect(err).toEqual([
       expect.stringMatching(/^day\/more\.ndjson: line 3: \(line\): is not valid JSON/),
-      'day/orders.json: [3]: patient.weightKg: must be a number ≥ 0.1 and ≤ 700',
-      'day/sub/day.csv: row 17: lines[1].amount: must be a number ≥ 0 and ≤ 100000',
+      // file: where: path: message (the message's bounds are the engine's own).
+      expect.stringMatching(/^day\/orders\.json: \[3\]: patient\.weightKg: must be a number /),
+      expect.stringMatching(/^day\/sub\/day\.csv: row 17: lines\[1\]\.amount: must be a number /),
     ]);
   });
 

@@ -46,11 +46,11 @@ interface Draft { product: string; cents: number; unit: string; species?: string
 const between = (rand: () => number, lo: number, hi: number) => lo + rand() * (hi - lo);
 
 /**
- * Millilitres of stock per unit of each line, for sizing the bag (catalog strengths: dextrose 70% 0.7 g/mL,
- * amino acids 10% 0.1 g/mL, etc.). Used only to pick a bag volume that mostly fits.
+ * Millilitres of stock per g, mEq or mmol ordered, for sizing the bag (catalog strengths: dextrose 70%
+ * 0.7 g/mL, amino acids 10% 0.1 g/mL, etc.). Used only to pick a bag volume that mostly fits.
  */
 const ML_PER = {
-  'amino-acids-10': 10, 'amino-acids-15': 1 / 0.15, 'dextrose-70': 1 / 0.7, 'dextrose-50': 2, 'dextrose-10': 10, 'lipid-20': 5,
+  'amino-acids-10': 10, 'amino-acids-15': 1 / 0.15, 'dextrose-70': 1 / 0.7, 'dextrose-50': 2, 'lipid-20': 5,
   'sodium-chloride-4': 0.25, 'sodium-acetate-2': 0.5, 'potassium-chloride-2': 0.5, 'potassium-acetate-2': 0.5,
   'potassium-phosphates-3': 1 / 3, 'sodium-glycerophosphate-1': 1, 'calcium-gluconate-10': 1 / 0.2325, 'magnesium-sulfate-50': 1 / 4.06,
   'multivitamin-adult': 1, 'trace-elements-adult': 1,
@@ -58,42 +58,58 @@ const ML_PER = {
 type Stock = keyof typeof ML_PER;
 
 function draft(product: Stock, amount: number, unit: string, extra: Partial<Draft> = {}): Draft {
-  // Calcium gluconate's figure is per mmol; an mEq of calcium is half a mmol.
-  const mlPerUnit = ML_PER[product] * (product === 'calcium-gluconate-10' && unit.startsWith('mEq') ? 0.5 : 1);
+  // An mL line is its own volume; calcium gluconate's figure is per mmol, and an mEq of calcium is half a mmol.
+  const mlPerUnit = unit.startsWith('mL') ? 1 : ML_PER[product] * (product === 'calcium-gluconate-10' && unit.startsWith('mEq') ? 0.5 : 1);
   return { product, cents: Math.max(1, Math.round(amount * 100)), unit, mlPerUnit, ...extra };
 }
 
+/**
+ * An adult day (doses per kg per day, common practice from memory, near the shipped policy's ranges):
+ * amino acids 1–1.8 g/kg, energy about 20–30 kcal/kg, Na 0.9–1.5 mmol/kg added (the amino acids bring
+ * some), K 1.1–1.7 mmol/kg, phosphate 20–35 mmol,
+ * calcium 10.5–14.5 mEq, magnesium 8–16 mEq. Peripheral bags are weaker, as peripheral PN is.
+ */
 function adult(rand: () => number, w: number, peripheral: boolean, tna: boolean): Draft[] {
+  const aa = w * (peripheral ? between(rand, 0.8, 1.2) : tna ? between(rand, 1.3, 1.8) : between(rand, 1, 1.8));
+  const dextrose = w * (peripheral ? between(rand, 1.5, 2.5) : tna ? between(rand, 3.5, 4.5) : between(rand, 4, 5));
   const lines = [
-    draft(peripheral || rand() < 0.5 ? 'amino-acids-10' : 'amino-acids-15', w * between(rand, peripheral ? 0.8 : 1, peripheral ? 1.2 : 2), 'g'),
-    draft(peripheral || rand() < 0.7 ? 'dextrose-70' : 'dextrose-50', w * between(rand, peripheral ? 1.5 : 2, peripheral ? 2.5 : 4.5), 'g'),
+    draft(peripheral || rand() < 0.2 ? 'amino-acids-10' : 'amino-acids-15', aa, 'g'),
+    draft(peripheral || rand() < 0.85 ? 'dextrose-70' : 'dextrose-50', dextrose, 'g'),
   ];
-  if (tna) lines.push(draft('lipid-20', w * between(rand, 0.5, 1.2) * 5, 'mL'));
+  if (tna) lines.push(draft('lipid-20', w * between(rand, 0.7, 1) * 5, 'mL'));
+  const phosphate = between(rand, 20, 35);
+  const potassium = Math.max(5, w * between(rand, 1.1, 1.7) - phosphate * (4.4 / 3));
+  const sodium = w * between(rand, 0.9, 1.5);
   lines.push(
-    draft('sodium-chloride-4', between(rand, 30, 80), 'mEq'),
-    draft('sodium-acetate-2', between(rand, 10, 40), 'mEq', { optional: true }),
-    draft('potassium-chloride-2', between(rand, 20, 60), 'mEq'),
-    draft('potassium-phosphates-3', between(rand, 10, 30), 'mmol', { species: 'phosphate' }),
-    draft('calcium-gluconate-10', between(rand, 9, 15), 'mEq'),
-    draft('magnesium-sulfate-50', between(rand, 8, 20), 'mEq'),
+    draft('sodium-chloride-4', sodium * 0.65, 'mEq'),
+    draft('sodium-acetate-2', sodium * 0.35, 'mEq', { optional: true }),
+    draft('potassium-chloride-2', potassium, 'mEq'),
+    draft('potassium-phosphates-3', phosphate, 'mmol', { species: 'phosphate' }),
+    draft('calcium-gluconate-10', between(rand, 10.5, 14.5), 'mEq'),
+    draft('magnesium-sulfate-50', between(rand, 8, 16), 'mEq'),
     draft('multivitamin-adult', 10, 'mL', { optional: true }),
     draft('trace-elements-adult', 1, 'mL', { optional: true }),
   );
   return lines;
 }
 
-function neonate(rand: () => number, tna: boolean): Draft[] {
+/**
+ * A neonatal day per kg (common practice from memory): amino acids 2.5–3.5 g/kg (term 3), dextrose 8–14 g/kg,
+ * organic phosphate 1–1.5 mmol/kg (it brings 2 mmol Na per mmol), calcium 1–2 mmol/kg, potassium
+ * 2–3 mEq/kg, magnesium 0.2–0.5 mEq/kg; lipid in the bag only sometimes (often given separately).
+ */
+function neonate(rand: () => number, term: boolean, tna: boolean): Draft[] {
   const lines = [
-    draft('amino-acids-10', between(rand, 2.5, 4), 'g/kg'),
-    draft(rand() < 0.8 ? 'dextrose-50' : 'dextrose-10', between(rand, 6, 14), 'g/kg'),
+    draft('amino-acids-10', between(rand, 2.5, term ? 3 : 3.5), 'g/kg'),
+    draft('dextrose-50', tna ? between(rand, 8, 12) : between(rand, 11, 14), 'g/kg'),
   ];
-  if (tna) lines.push(draft('lipid-20', between(rand, 1, 3) * 5, 'mL/kg'));
+  if (tna) lines.push(draft('lipid-20', between(rand, 1.5, 3) * 5, 'mL/kg'));
   lines.push(
-    draft('sodium-glycerophosphate-1', between(rand, 1, 2), 'mmol/kg'),
+    draft('sodium-glycerophosphate-1', between(rand, 1, 1.5), 'mmol/kg'),
     draft('calcium-gluconate-10', between(rand, 1, 2), 'mmol/kg', { species: 'Ca' }),
-    draft('potassium-acetate-2', between(rand, 1, 3), 'mEq/kg'),
-    draft('sodium-chloride-4', between(rand, 1, 3), 'mEq/kg', { optional: true }),
-    draft('magnesium-sulfate-50', between(rand, 0.2, 0.6), 'mEq/kg', { optional: true }),
+    draft('potassium-acetate-2', between(rand, 2, 3), 'mEq/kg'),
+    draft('magnesium-sulfate-50', between(rand, 0.2, 0.5), 'mEq/kg'),
+    draft('sodium-chloride-4', between(rand, 0.1, 0.3), 'mEq/kg', { optional: true }),
   );
   return lines;
 }
@@ -117,22 +133,23 @@ function splitTo(lines: Draft[], n: number, rand: () => number): Draft[] {
 }
 
 /**
- * One realistic order: 60% adult, 40% neonatal (most preterm); about a third peripheral; half 3-in-1; `lines`
- * lines in all, the fill included. The bag volume is picked to hold what is ordered (about 3% are
+ * One realistic order: 60% adult, 40% neonatal (most preterm); some peripheral; 3-in-1 for half the
+ * adults and a few neonates; `lines` lines in all, the fill included. The bag volume follows the
+ * fluid dose (adults 27–38 mL/kg, 3-in-1 at most 32; neonates 120–160 mL/kg) and holds what is ordered (about 3% are
  * ordered too small on purpose, as real mistakes are).
  */
 export function makeOrder(rand: () => number, i: number, lineCount: number): GenOrder {
   const isAdult = rand() < 0.6;
   const ageGroup = isAdult ? 'adult' : rand() < 0.7 ? 'preterm-neonate' : 'term-neonate';
   const w = isAdult ? Math.round(between(rand, 45, 110) * 10) / 10 : ageGroup === 'preterm-neonate' ? Math.round(between(rand, 0.6, 2.2) * 100) / 100 : Math.round(between(rand, 2.5, 4.5) * 100) / 100;
-  const peripheral = rand() < (isAdult ? 0.3 : 0.2);
-  const tna = rand() < 0.5;
-  const drafts = splitTo(isAdult ? adult(rand, w, peripheral, tna) : neonate(rand, tna), lineCount - 1, rand);
+  const peripheral = rand() < (isAdult ? 0.15 : 0.1);
+  const tna = rand() < (isAdult ? 0.5 : 0.15);
+  const drafts = splitTo(isAdult ? adult(rand, w, peripheral, tna) : neonate(rand, ageGroup === 'term-neonate', tna), lineCount - 1, rand);
   const perKg = (unit: string) => (unit.endsWith('/kg') ? w : 1);
   const needed = drafts.reduce((ml, l) => ml + (l.cents / 100) * perKg(l.unit) * l.mlPerUnit, 0);
-  const wanted = isAdult ? between(rand, 1500, 3000) : w * between(rand, 100, 160);
+  const wanted = w * (isAdult ? between(rand, 27, tna ? 32 : 38) : between(rand, 120, 160));
   const step = isAdult ? 100 : 1;
-  const fits = Math.max(wanted, needed * between(rand, 1.05, 1.3));
+  const fits = Math.max(wanted, needed * between(rand, 1.02, 1.1));
   const volume = Math.ceil((rand() < 0.03 ? needed * 0.9 : fits) / step) * step;
   const lines: GenLine[] = drafts.map((d) => {
     const line: GenLine = { product: d.product, amount: hundredths(d.cents), unit: d.unit };
