@@ -51,8 +51,18 @@ function place(o: FoundOrder): string {
   return o.where === '' ? o.file : `${o.file} ${o.where}`;
 }
 
-/** `osmocount check`: every order of every input through the engine, reports as they come, a summary at the end. */
-export async function checkCommand(args: string[], io: CliIo, usage: string): Promise<number> {
+/** The options of one `check` run. */
+interface CheckOptions {
+  paths: string[];
+  catalog: string | undefined;
+  policy: string | undefined;
+  output: 'table' | 'json' | 'ndjson';
+  only: Set<Verdict>;
+  failOn: Verdict;
+}
+
+/** Read the command line; a message when it makes no sense, 'help' for -h. */
+function checkOptions(args: string[]): CheckOptions | 'help' | { message: string } {
   let parsed;
   try {
     parsed = parseArgs({
@@ -65,29 +75,34 @@ export async function checkCommand(args: string[], io: CliIo, usage: string): Pr
       },
     });
   } catch (e) {
-    io.stderr(`osmocount check: ${(e as Error).message}\n\n${usage}`);
-    return EXIT.invalid;
+    return { message: (e as Error).message };
   }
   const v = parsed.values;
-  if (v.help) { io.stdout(usage); return EXIT.ok; }
-  const fail = (message: string) => { io.stderr(`osmocount check: ${message}\n\n${usage}`); return EXIT.invalid; };
-  if (parsed.positionals.length === 0) return fail('name at least one order file or directory');
-  if (v.json && v.ndjson) return fail('choose one of --json and --ndjson');
+  if (v.help) return 'help';
+  if (parsed.positionals.length === 0) return { message: 'name at least one order file or directory' };
+  if (v.json && v.ndjson) return { message: 'choose one of --json and --ndjson' };
   const only = v.only ? verdictSet(v.only) : new Set<Verdict>(['pass', 'warn', 'block']);
-  if (!only) return fail(`--only takes pass, warn or block (got "${v.only?.join(',')}")`);
+  if (!only) return { message: `--only takes pass, warn or block (got "${v.only?.join(',')}")` };
   const failOn = VERDICT_NAMES[(v['fail-on'] ?? 'block').toLowerCase()];
-  if (!failOn || failOn === 'pass') return fail(`--fail-on takes warn or block (got "${v['fail-on']}")`);
+  if (!failOn || failOn === 'pass') return { message: `--fail-on takes warn or block (got "${v['fail-on']}")` };
+  return { paths: parsed.positionals, catalog: v.catalog, policy: v.policy, output: v.json ? 'json' : v.ndjson ? 'ndjson' : 'table', only, failOn };
+}
 
-  const setup = await loadSetup(io, v.catalog, v.policy);
+/** `osmocount check`: every order of every input through the engine, reports as they come, a summary at the end. */
+export async function checkCommand(args: string[], io: CliIo, usage: string): Promise<number> {
+  const options = checkOptions(args);
+  if (options === 'help') { io.stdout(usage); return EXIT.ok; }
+  if ('message' in options) { io.stderr(`osmocount check: ${options.message}\n\n${usage}`); return EXIT.invalid; }
+  const setup = await loadSetup(io, options.catalog, options.policy);
   if (!setup) return EXIT.invalid;
-  const { files, problems } = await listInputs(io, parsed.positionals);
+  const { files, problems } = await listInputs(io, options.paths);
 
   const now = io.now ? io.now.bind(io) : () => Date.now();
   const started = now();
   const progress = progressLine(io.progress?.bind(io), now, files.reduce((n, f) => n + f.size, 0));
   const say = io.stdoutIsTerminal ? (text: string) => { progress.clear(); io.stdout(text); } : (text: string) => io.stdout(text);
   const complain = (text: string) => { progress.clear(); io.stderr(text); };
-  const writer = v.json ? jsonWriter(say) : v.ndjson ? ndjsonWriter(say) : tableWriter(say);
+  const writer = { table: tableWriter, json: jsonWriter, ndjson: ndjsonWriter }[options.output](say);
   const summary = newSummary();
   const reject = (item: InvalidItem) => {
     summary.invalid += 1;
@@ -118,7 +133,7 @@ export async function checkCommand(args: string[], io: CliIo, usage: string): Pr
       }
       const report = r.value.report;
       addReport(summary, report, place(o));
-      if (only.has(report.verdict)) writer.write(report);
+      if (options.only.has(report.verdict)) writer.write(report);
       checked += 1;
       progress.update(checked, bytesDone + ((reading.stream as { bytesRead?: number } | null)?.bytesRead ?? 0));
       if (checked % 64 === 0 && io.flush) await io.flush();
@@ -128,10 +143,10 @@ export async function checkCommand(args: string[], io: CliIo, usage: string): Pr
   writer.end();
   progress.clear();
   const text = summaryText(summary, io.now ? (now() - started) / 1000 : null);
-  if (v.json || v.ndjson) io.stderr(`${text}\n${CAUTION}`);
-  else io.stdout(`\n${text}\n\n${CAUTION}`);
+  if (options.output === 'table') io.stdout(`\n${text}\n\n${CAUTION}`);
+  else io.stderr(`${summary.invalid > 0 ? '\n' : ''}${text}\n${CAUTION}`);
 
   if (summary.invalid > 0) return EXIT.invalid;
-  const failing = (['pass', 'warn', 'block'] as const).some((verdict) => RANK[verdict] >= RANK[failOn] && summary.byVerdict[verdict] > 0);
+  const failing = (['pass', 'warn', 'block'] as const).some((verdict) => RANK[verdict] >= RANK[options.failOn] && summary.byVerdict[verdict] > 0);
   return failing ? EXIT.block : EXIT.ok;
 }
