@@ -153,8 +153,8 @@ async function streamFigures(): Promise<void> {
 
     const forced = process.env.BENCH_STREAM_ORDERS ? Number(process.env.BENCH_STREAM_ORDERS) : null;
     const left = Math.max(60, BUDGET_S - (performance.now() - began) / 1000);
-    const fits = Math.floor((rate * left) / 100_000) * 100_000;
-    const count = forced ?? (STREAM_FULL / rate <= left ? STREAM_FULL : Math.max(100_000, fits));
+    const fits = Math.floor((rate * left) / 50_000) * 50_000;
+    const count = forced ?? (STREAM_FULL / rate <= left ? STREAM_FULL : Math.max(50_000, fits));
     if (forced === null && count < STREAM_FULL) {
       console.log(`  (the 1,000,000-order run would take about ${num.format(STREAM_FULL / rate / 60)} min at ${num.format(rate)} orders/s: scaled to ${num.format(count)} to keep the bench near ten minutes; BENCH_STREAM_ORDERS=1000000 forces it)`);
     }
