@@ -45,6 +45,8 @@ export default defineConfig(({ mode }) =>
     ? nodeBundle('src/cli/main.ts', 'dist/cli', 'osmocount.mjs')
     : mode === 'bench'
     ? nodeBundle('test/bench/bench.ts', 'dist/bench', 'bench.mjs')
+    : mode === 'profile'
+    ? nodeBundle('test/bench/profile.ts', 'dist/profile', 'profile.mjs')
     : {
         plugins: [react(), contentSecurityPolicy()],
         build: { outDir: 'dist/app', emptyOutDir: true, chunkSizeWarningLimit: 1500 },

@@ -1,4 +1,5 @@
 // Profiling entry (not part of npm run bench): N generated orders through checkOrder and the report.
+// vite build --mode profile && N=2000 node --cpu-prof dist/profile/profile.mjs
 import { batch } from './generate.ts';
 import { DEFAULT_CATALOG, DEFAULT_POLICY } from '../../src/defaults.ts';
 import { checkOrder } from '../../src/core/evaluate.ts';
