@@ -3,6 +3,7 @@ import { D } from './decimal.ts';
 import { optionalDecimal, parseWith } from './schema.ts';
 import { AGE_GROUPS, type AgeGroup } from './order.ts';
 import type { Result } from './problems.ts';
+import { beyondUseSchema, toBeyondUsePolicy, type BeyondUsePolicy } from './beyondUse.ts';
 
 export const SEVERITIES = ['block', 'warn', 'info'] as const;
 /** How much a finding holds the bag back: `block` stops it, `warn` needs a look, `info` informs. */
@@ -64,6 +65,7 @@ export const policyFileSchema = z.object({
     plasmaOsmolality: referenceSchema,
     osmoticPressureTemperatureC: referenceSchema,
   }),
+  beyondUse: beyondUseSchema.optional(),
 });
 
 export type RuleCode = keyof z.output<typeof policyFileSchema>['rules'];
@@ -83,6 +85,8 @@ export interface Policy {
     plasmaOsmolality: { min: D; max: D; unit: string; source: string };
     osmoticPressureTemperatureC: { value: D; source: string };
   };
+  /** Beyond-use durations and storage for the bag label; null when the policy has none. */
+  beyondUse: BeyondUsePolicy | null;
 }
 
 function toRule(r: RuleInput): Rule | null {
@@ -133,6 +137,7 @@ export function parsePolicy(input: unknown): Result<Policy> {
         plasmaOsmolality: { min: ref.plasmaOsmolality.min as D, max: ref.plasmaOsmolality.max as D, unit: ref.plasmaOsmolality.unit, source: ref.plasmaOsmolality.source },
         osmoticPressureTemperatureC: { value: ref.osmoticPressureTemperatureC.value as D, source: ref.osmoticPressureTemperatureC.source },
       },
+      beyondUse: p.beyondUse ? toBeyondUsePolicy(p.beyondUse) : null,
     },
   };
 }
