@@ -51,6 +51,7 @@ export default defineConfig(({ mode }) =>
         test: {
           environment: 'node',
           setupFiles: ['./src/test-setup.ts'],
+          css: { include: [/print\.css/] },
           include: ['src/**/*.test.{ts,tsx}', 'test/**/*.test.{ts,tsx}'],
         },
       },

@@ -8,7 +8,7 @@ import type { Result } from './problems.ts';
 // condition, each duration with its source; and the storage instruction printed on the label.
 
 const stepSchema = z.strictObject({
-  label: z.string().trim().min(1, 'must say how the bag is kept, e.g. "room temperature"'),
+  label: z.string().trim().min(1, 'must say how the bag is kept, e.g. "at room temperature" or "refrigerated"'),
   temperature: z.string().trim().min(1, 'must give the temperature range, e.g. "20–25 °C"'),
   hours: optionalDecimal({ gt: 0, max: 8760 }),
   days: optionalDecimal({ gt: 0, max: 365 }),
