@@ -37,6 +37,8 @@ function nodeBundle(entry: string, outDir: string, fileName: string): UserConfig
       rollupOptions: { output: { entryFileNames: fileName } },
     },
     ssr: { noExternal: true },
+    // React (the printouts' HTML renderer) in its production build, not chosen at run time.
+    define: { 'process.env.NODE_ENV': JSON.stringify('production') },
   };
 }
 

@@ -6,12 +6,17 @@ import type { Report } from '../core/report.ts';
 import { DEFAULT_CATALOG, DEFAULT_POLICY } from '../defaults.ts';
 import { ordersFromText, formatFileProblem, type FileProblem } from './inputs.ts';
 import { reportTable, CAUTION } from './table.ts';
+import { print } from './print.ts';
 
 /** What the CLI may touch: injected so tests run it in memory. */
 export interface CliIo {
   readFile(path: string): Promise<string>;
   stdout(text: string): void;
   stderr(text: string): void;
+  /** Write a text file, creating its folder; absent where nothing may be written. */
+  writeFile?(path: string, text: string): Promise<void>;
+  /** The clock (the printing time and the default compounding time); the system clock when absent. */
+  now?(): Date;
 }
 
 export const EXIT = { ok: 0, block: 1, invalid: 2 } as const;
@@ -20,6 +25,13 @@ export const USAGE = `Usage:
   osmocount check FILE... [--catalog FILE] [--policy FILE] [--json]
       Check PN orders (one order, a JSON array of orders, or NDJSON per file).
       Exit 0: every order pass or warn; 1: any order held (block); 2: any input invalid.
+  osmocount print FILE... --sheet|--label --out DIR [--catalog FILE] [--policy FILE]
+        [--institution NAME] [--paper a4|letter] [--label-size 4x6|4x4|WxHin|WxHmm]
+        [--compounded ISO-TIME] [--time-zone ZONE]
+      Write each order's verification sheet (ORDER.sheet.html) and/or bag label (ORDER.label.html)
+      into DIR as self-contained HTML (styles and barcode inline) for printing. --compounded is
+      the compounding time the beyond-use dates count from (default now), read in --time-zone
+      (default the system's) unless it carries an offset. Exit codes as for check.
 
 Options:
   --catalog FILE   stock catalog (default: the shipped data/catalog.json)
@@ -121,6 +133,8 @@ export async function runCli(argv: string[], io: CliIo): Promise<number> {
   switch (command) {
     case 'check':
       return check(rest, io);
+    case 'print':
+      return print(rest, io);
     case undefined:
     case '-h':
     case '--help':
