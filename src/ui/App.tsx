@@ -8,6 +8,7 @@ import { LinesView } from './components/LinesView.tsx';
 import { OsmolarityPanel } from './components/OsmolarityPanel.tsx';
 import { TotalsPanel } from './components/TotalsPanel.tsx';
 import { FindingsPanel } from './components/FindingsPanel.tsx';
+import { PrintActions } from './print/PrintActions.tsx';
 
 /** The app: pick an order, see the bag the engine computes and what holds it back. */
 export function App() {
@@ -25,6 +26,7 @@ export function App() {
           </select>
         </label>
         <span className="context">Catalog: {DEFAULT_CATALOG.name} · Policy: {DEFAULT_POLICY.name}</span>
+        {result?.ok ? <PrintActions report={result.value.report} catalog={DEFAULT_CATALOG} policy={DEFAULT_POLICY} /> : null}
       </header>
       <Caution />
       {result === null ? null : result.ok ? (

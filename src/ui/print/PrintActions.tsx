@@ -1,0 +1,88 @@
+import { useMemo, useState } from 'react';
+import { createPortal } from 'react-dom';
+import type { Catalog } from '../../core/catalog.ts';
+import type { Policy } from '../../core/policy.ts';
+import type { Report } from '../../core/report.ts';
+import { LabelView } from './LabelView.tsx';
+import { SheetView } from './SheetView.tsx';
+import { labelModel } from './labelModel.ts';
+import { sheetModel } from './sheetModel.ts';
+import { LABEL_PRESETS, PAPERS, PAPER_TEXT, labelSizeText, parseLabelSize, type PrintOptions, type PrintSequenceStep } from './options.ts';
+import { usePrintJob } from './usePrintJob.ts';
+import './print.css';
+
+/** The demo's institution (a fictional hospital); a deployment passes its own name. */
+export const DEMO_INSTITUTION = 'Marren Point Hospital';
+
+interface Props {
+  report: Report;
+  catalog: Catalog;
+  policy: Policy;
+  institution?: string;
+  sequence?: readonly PrintSequenceStep[];
+}
+
+/** The label-size choice: presets, or a custom size typed as WxHin / WxHmm. */
+function LabelSizeField({ onChange }: { onChange: (size: ReturnType<typeof parseLabelSize>) => void }) {
+  const [choice, setChoice] = useState(LABEL_PRESETS[0]?.id ?? '4x6');
+  const [custom, setCustom] = useState('');
+  const [problem, setProblem] = useState<string | null>(null);
+  const apply = (id: string, text: string) => {
+    const r = parseLabelSize(id === 'custom' ? text : id, 'Label size');
+    setProblem(r.ok || (id === 'custom' && text.trim() === '') ? null : r.problems.map((p) => p.message).join('; '));
+    onChange(r);
+  };
+  return (
+    <>
+      <label className="pr-field">
+        Label
+        <select value={choice} onChange={(e) => { setChoice(e.target.value); apply(e.target.value, custom); }}>
+          {LABEL_PRESETS.map((p) => <option key={p.id} value={p.id}>{labelSizeText(p)}</option>)}
+          <option value="custom">Custom…</option>
+        </select>
+      </label>
+      {choice === 'custom' ? (
+        <label className="pr-field">
+          Size
+          <input value={custom} placeholder="e.g. 3.5x5in or 100x150mm" size={16} aria-invalid={problem !== null}
+            onChange={(e) => { setCustom(e.target.value); apply('custom', e.target.value); }} />
+        </label>
+      ) : null}
+      {problem ? <span className="pr-field-problem" role="alert">{problem}</span> : null}
+    </>
+  );
+}
+
+/**
+ * Print buttons for the current order: the verification sheet (A4 or US Letter) and the bag label
+ * (4 × 6 in, 4 × 4 in or custom). The chosen printout renders into a print-only container outside
+ * the app, so nothing of the workspace prints.
+ */
+export function PrintActions({ report, catalog, policy, institution, sequence }: Props) {
+  const { job, paper, setPaper, labelSize, setLabelSize, print } = usePrintJob();
+  const [sizeOk, setSizeOk] = useState(true);
+  const options = useMemo<PrintOptions>(() => ({
+    institution: institution ?? policy.institution ?? DEMO_INSTITUTION,
+    paper, labelSize, catalog, policy,
+    compoundedAt: job.at, printedAt: job.at,
+    timeZone: Intl.DateTimeFormat().resolvedOptions().timeZone,
+    ...(sequence ? { sequence } : {}),
+  }), [institution, paper, labelSize, catalog, policy, job.at, sequence]);
+  const printout = job.kind === 'sheet'
+    ? <SheetView model={sheetModel(report, options)} />
+    : <LabelView model={labelModel(report, options)} />;
+  return (
+    <div className="pr-actions" role="group" aria-label="Print">
+      <label className="pr-field">
+        Paper
+        <select value={paper} onChange={(e) => setPaper(e.target.value === 'letter' ? 'letter' : 'a4')}>
+          {PAPERS.map((p) => <option key={p} value={p}>{PAPER_TEXT[p]}</option>)}
+        </select>
+      </label>
+      <button type="button" className="pr-button" onClick={() => print('sheet')}>Print verification sheet</button>
+      <LabelSizeField onChange={(r) => { setSizeOk(r.ok); if (r.ok) setLabelSize(r.value); }} />
+      <button type="button" className="pr-button" disabled={!sizeOk} onClick={() => print('label')}>Print bag label</button>
+      {createPortal(<div className="pr-portal" data-testid="print-container">{printout}</div>, document.body)}
+    </div>
+  );
+}
