@@ -135,7 +135,11 @@ export async function print(args: string[], io: CliIo): Promise<number> {
   for (const [i, report] of reports.entries()) {
     const outputs: [string, string][] = [];
     if (a.sheet) outputs.push([`${names[i]}.sheet.html`, renderSheetHtml(sheetModel(report, options))]);
-    if (a.label) outputs.push([`${names[i]}.label.html`, renderLabelHtml(labelModel(report, options))]);
+    if (a.label) {
+      const label = labelModel(report, options);
+      if (label.fitWarning) io.stderr(`warning: ${report.order}: ${label.fitWarning}`);
+      outputs.push([`${names[i]}.label.html`, renderLabelHtml(label)]);
+    }
     for (const [name, html] of outputs) {
       const path = join(a.out, name);
       try {

@@ -1,4 +1,4 @@
-import { useMemo, useState } from 'react';
+import { useId, useMemo, useState } from 'react';
 import { createPortal } from 'react-dom';
 import type { Catalog } from '../../core/catalog.ts';
 import type { Policy } from '../../core/policy.ts';
@@ -27,6 +27,7 @@ function LabelSizeField({ onChange }: { onChange: (size: ReturnType<typeof parse
   const [choice, setChoice] = useState(LABEL_PRESETS[0]?.id ?? '4x6');
   const [custom, setCustom] = useState('');
   const [problem, setProblem] = useState<string | null>(null);
+  const id = useId();
   const apply = (id: string, text: string) => {
     const r = parseLabelSize(id === 'custom' ? text : id, 'Label size');
     setProblem(r.ok || (id === 'custom' && text.trim() === '') ? null : r.problems.map((p) => p.message).join('; '));
@@ -34,19 +35,19 @@ function LabelSizeField({ onChange }: { onChange: (size: ReturnType<typeof parse
   };
   return (
     <>
-      <label className="pr-field">
-        Label
-        <select value={choice} onChange={(e) => { setChoice(e.target.value); apply(e.target.value, custom); }}>
+      <span className="pr-field">
+        <label htmlFor={`${id}-size`}>Label</label>
+        <select id={`${id}-size`} value={choice} onChange={(e) => { setChoice(e.target.value); apply(e.target.value, custom); }}>
           {LABEL_PRESETS.map((p) => <option key={p.id} value={p.id}>{labelSizeText(p)}</option>)}
           <option value="custom">Custom…</option>
         </select>
-      </label>
+      </span>
       {choice === 'custom' ? (
-        <label className="pr-field">
-          Size
-          <input value={custom} placeholder="e.g. 3.5x5in or 100x150mm" size={16} aria-invalid={problem !== null}
+        <span className="pr-field">
+          <label htmlFor={`${id}-custom`}>Size</label>
+          <input id={`${id}-custom`} value={custom} placeholder="e.g. 3.5x5in or 100x150mm" size={16} aria-invalid={problem !== null}
             onChange={(e) => { setCustom(e.target.value); apply('custom', e.target.value); }} />
-        </label>
+        </span>
       ) : null}
       {problem ? <span className="pr-field-problem" role="alert">{problem}</span> : null}
     </>
@@ -61,6 +62,7 @@ function LabelSizeField({ onChange }: { onChange: (size: ReturnType<typeof parse
 export function PrintActions({ report, catalog, policy, institution, sequence }: Props) {
   const { job, paper, setPaper, labelSize, setLabelSize, print } = usePrintJob();
   const [sizeOk, setSizeOk] = useState(true);
+  const paperId = useId();
   const options = useMemo<PrintOptions>(() => ({
     institution: institution ?? policy.institution ?? DEMO_INSTITUTION,
     paper, labelSize, catalog, policy,
@@ -68,20 +70,20 @@ export function PrintActions({ report, catalog, policy, institution, sequence }:
     timeZone: Intl.DateTimeFormat().resolvedOptions().timeZone,
     ...(sequence ? { sequence } : {}),
   }), [institution, paper, labelSize, catalog, policy, job.at, sequence]);
-  const printout = job.kind === 'sheet'
-    ? <SheetView model={sheetModel(report, options)} />
-    : <LabelView model={labelModel(report, options)} />;
+  const label = useMemo(() => labelModel(report, options), [report, options]);
+  const printout = job.kind === 'sheet' ? <SheetView model={sheetModel(report, options)} /> : <LabelView model={label} />;
   return (
     <div className="pr-actions" role="group" aria-label="Print">
-      <label className="pr-field">
-        Paper
-        <select value={paper} onChange={(e) => setPaper(e.target.value === 'letter' ? 'letter' : 'a4')}>
+      <span className="pr-field">
+        <label htmlFor={paperId}>Paper</label>
+        <select id={paperId} value={paper} onChange={(e) => setPaper(e.target.value === 'letter' ? 'letter' : 'a4')}>
           {PAPERS.map((p) => <option key={p} value={p}>{PAPER_TEXT[p]}</option>)}
         </select>
-      </label>
+      </span>
       <button type="button" className="pr-button" onClick={() => print('sheet')}>Print verification sheet</button>
       <LabelSizeField onChange={(r) => { setSizeOk(r.ok); if (r.ok) setLabelSize(r.value); }} />
       <button type="button" className="pr-button" disabled={!sizeOk} onClick={() => print('label')}>Print bag label</button>
+      {label.fitWarning ? <span className="pr-field-problem" role="status">{label.fitWarning}</span> : null}
       {createPortal(<div className="pr-portal" data-testid="print-container">{printout}</div>, document.body)}
     </div>
   );

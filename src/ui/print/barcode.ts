@@ -6,8 +6,8 @@ export interface Barcode {
   symbology: 'Code 128';
   text: string;
   viewBox: string;
-  /** Width ÷ height of the drawing, for sizing. */
-  aspect: number;
+  /** Width of the symbol in modules (narrowest bar widths), quiet zones not included. */
+  modules: number;
   paths: { d: string; strokeWidth: string }[];
 }
 
@@ -32,5 +32,5 @@ export function orderBarcode(text: string): Result<Barcode> {
   const [, , w = 0, h = 0] = viewBox.split(/\s+/).map(Number);
   const paths = [...svg.matchAll(/<path stroke="#000000" stroke-width="([\d.]+)" d="([^"]+)"/g)].map((m) => ({ strokeWidth: m[1] ?? '1', d: m[2] ?? '' }));
   if (!viewBox || paths.length === 0 || !(w > 0 && h > 0)) return { ok: false, problems: [{ path: 'order', message: 'barcode drawing failed' }] };
-  return { ok: true, value: { symbology: 'Code 128', text, viewBox, aspect: w / h, paths } };
+  return { ok: true, value: { symbology: 'Code 128', text, viewBox, modules: w, paths } };
 }

@@ -95,6 +95,7 @@ describe('options', () => {
     const m = labelModel(demoReport('adult-central'), printOptions({ labelSize: LABEL_PRESETS[1] ?? LABEL_PRESETS[0]!, timeZone: 'America/New_York' }));
     expect(m.size.id).toBe('4x4');
     expect(m.compact).toBe(true);
+    expect(m.fitWarning).toBeNull();
     // 14:30 UTC is 09:30 in New York in December (UTC−5).
     expect(m.compounded).toBe('02 Dec 2026 09:30');
     expect(m.beyondUse[0]?.until).toBe('03 Dec 2026 15:30');
@@ -111,6 +112,14 @@ describe('options', () => {
     expect(m.compounded).toBe('(no valid date and time)');
     expect(m.beyondUseProblem).toBe('compoundedAt: is not a valid date and time');
   });
+});
+
+test('an order too long for its label is flagged, with the advice to use a larger one', () => {
+  const r = demoReport('adult-central');
+  const many = { ...r, patient: { ...r.patient, ageGroup: 'child' as const }, lines: [...r.lines, ...r.lines.filter((l) => l.role === 'electrolyte').map((l, i) => ({ ...l, index: 20 + i }))] };
+  const m = labelModel(many, printOptions({ labelSize: LABEL_PRESETS[1] ?? LABEL_PRESETS[0]! }));
+  expect(m.fitWarning).toBe(`This label may not fit on one 4 × 4 in label (${m.ingredients.length} ingredients): print it on a larger label.`);
+  expect(labelModel(many, printOptions()).fitWarning).toBeNull();
 });
 
 test('an order id Code 128 cannot carry gets no barcode, and says why', () => {

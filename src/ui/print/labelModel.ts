@@ -8,7 +8,8 @@ import { LABEL_CAUTIONS, beyondUseRows, filterText, isThreeInOne, routeWording, 
 import { amount, dateTime } from './format.ts';
 import { GROUP_TEXT, labelIngredients, type Ingredient } from './ingredients.ts';
 import type { IngredientRow, LabelModel } from './model.ts';
-import { isCompactLabel, type PrintOptions } from './options.ts';
+import { labelSizeText, type PrintOptions } from './options.ts';
+import { labelFit } from './labelFit.ts';
 
 const SPECIES_SHORT: Partial<Record<string, string>> = { Na: 'Na', K: 'K', Ca: 'Ca', Mg: 'Mg' };
 
@@ -50,25 +51,32 @@ export function labelModel(report: Report, options: PrintOptions): LabelModel {
   const kids = p.ageGroup !== 'adult';
   const bud = beyondUseRows(options);
   const barcode = orderBarcode(report.order);
-  const cautions = [isThreeInOne(report) ? LABEL_CAUTIONS.emulsion : LABEL_CAUTIONS.precipitate, LABEL_CAUTIONS.highAlert];
+  const threeInOne = isThreeInOne(report);
+  const cautions = [threeInOne ? LABEL_CAUTIONS.emulsion : LABEL_CAUTIONS.precipitate, LABEL_CAUTIONS.highAlert];
+  const route = routeWording(report);
+  const ingredients = ingredientRows(report, options, kids);
+  const patientName = p.name ?? '(no name in the order)';
+  const hold = report.verdict === 'block' ? 'ON HOLD: not released. Do not hang. See the verification sheet.' : null;
+  const fit = labelFit({ patientName, emphaticRoute: route.emphatic, threeInOne, hold: hold !== null, ingredients }, options.labelSize);
   return {
     kind: 'label',
     size: options.labelSize,
-    compact: isCompactLabel(options.labelSize),
+    compact: fit.compact,
+    fitWarning: fit.fits ? null : `This label may not fit on one ${labelSizeText(options.labelSize)} label (${ingredients.length} ingredients): print it on a larger label.`,
     institution: options.institution,
     title: 'Parenteral nutrition',
     orderId: report.order,
     patient: {
-      name: p.name ?? '(no name in the order)',
+      name: patientName,
       identifier: p.id,
       location: p.location ?? '(no location in the order)',
       weight: amount(p.weightKg, 'kg'),
       ageGroup: AGE_GROUP_TEXT[p.ageGroup],
     },
-    route: routeWording(report),
-    hold: report.verdict === 'block' ? 'ON HOLD: not released. Do not hang. See the verification sheet.' : null,
+    route,
+    hold,
     perKg: kids,
-    ingredients: ingredientRows(report, options, kids),
+    ingredients,
     volume: volumeFields(report),
     compounded: dateTime(options.compoundedAt, options.timeZone),
     beyondUse: bud.rows,

@@ -84,7 +84,10 @@ export interface BeyondUseRow {
 export interface LabelModel {
   kind: 'label';
   size: LabelSize;
+  /** Two-column ingredients and smaller type, for labels under 5 in tall or long orders. */
   compact: boolean;
+  /** Set when the content is expected to run onto a second page at this size. */
+  fitWarning: string | null;
   institution: string;
   title: string;
   orderId: string;

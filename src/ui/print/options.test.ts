@@ -1,5 +1,5 @@
 import { describe, expect, test } from 'vitest';
-import { checkTimeZone, customLabelCss, isCompactLabel, parseLabelSize } from './options.ts';
+import { checkTimeZone, customLabelCss, parseLabelSize } from './options.ts';
 
 describe('parseLabelSize', () => {
   test('presets and custom sizes in inches or millimetres', () => {
@@ -14,13 +14,6 @@ describe('parseLabelSize', () => {
     expect(parseLabelSize('4x6cm').ok).toBe(false);
     expect(parseLabelSize('2x2in')).toEqual({ ok: false, problems: [{ path: 'label-size', message: 'each side must be between 3 in (76 mm) and 14 in (356 mm) (got 2 × 2 in)' }] });
     expect(parseLabelSize('400x100mm').ok).toBe(false);
-  });
-
-  test('labels under 5 in tall use the compact layout (25.4 mm per inch)', () => {
-    expect(isCompactLabel({ id: '4x4', width: 4, height: 4, unit: 'in' })).toBe(true);
-    expect(isCompactLabel({ id: '4x6', width: 4, height: 6, unit: 'in' })).toBe(false);
-    expect(isCompactLabel({ id: 'custom', width: 100, height: 126, unit: 'mm' })).toBe(true);
-    expect(isCompactLabel({ id: 'custom', width: 100, height: 127, unit: 'mm' })).toBe(false);
   });
 
   test('a custom size brings its own page rule; presets are in print.css', () => {

@@ -60,11 +60,6 @@ export function cssSize(s: LabelSize): { width: string; height: string } {
   return { width: `${s.width}${s.unit}`, height: `${s.height}${s.unit}` };
 }
 
-/** True when the label is small enough to need the compact layout (under 5 in tall). */
-export function isCompactLabel(s: LabelSize): boolean {
-  return toMm(s.height, s.unit) < 5 * MM_PER_IN - 0.5;
-}
-
 /**
  * One step of a suggested mixing sequence, as the verification sheet prints it. The compounding
  * module's sequence steps fit this shape; until one is given, the sheet prints no sequence.

@@ -43,6 +43,7 @@ export function sheetText(m: SheetModel): string {
 export function labelText(m: LabelModel): string {
   return [
     `${m.institution} — ${m.title} (${labelSizeText(m.size)})`,
+    ...(m.fitWarning ? [`Warning: ${m.fitWarning}`] : []),
     ...(m.hold ? [m.hold] : []),
     `Patient: ${m.patient.name}`,
     `ID: ${m.patient.identifier}`,
