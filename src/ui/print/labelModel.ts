@@ -56,7 +56,7 @@ export function labelModel(report: Report, options: PrintOptions): LabelModel {
   const route = routeWording(report);
   const ingredients = ingredientRows(report, options, kids);
   const patientName = p.name ?? '(no name in the order)';
-  const hold = report.verdict === 'block' ? 'ON HOLD: not released. Do not hang. See the verification sheet.' : null;
+  const hold = report.verdict === 'block' ? 'ON HOLD: not released. Do not hang.' : null;
   const fit = labelFit({ patientName, emphaticRoute: route.emphatic, threeInOne, hold: hold !== null, ingredients }, options.labelSize);
   return {
     kind: 'label',
