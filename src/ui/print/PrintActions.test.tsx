@@ -1,6 +1,6 @@
 // @vitest-environment jsdom
 import { describe, expect, test, vi } from 'vitest';
-import { render, screen } from '@testing-library/react';
+import { act, render, screen } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { PrintActions } from './PrintActions.tsx';
 import { DEFAULT_CATALOG, DEFAULT_POLICY } from '../../defaults.ts';
@@ -49,4 +49,14 @@ describe('PrintActions', () => {
     await user.click(screen.getByRole('button', { name: 'Print bag label' }));
     expect(container()?.querySelector('article.pr-label.pr-size-custom')?.textContent).toContain('3.5 g/kg/day');
   });
+});
+
+test('nothing is in the print container until a printout is asked for, and it empties after printing', async () => {
+  window.print = vi.fn();
+  render(<PrintActions report={demoReport('adult-central')} catalog={DEFAULT_CATALOG} policy={DEFAULT_POLICY} />);
+  expect(document.querySelector('[data-testid="print-container"]')).toBeNull();
+  await userEvent.setup().click(screen.getByRole('button', { name: 'Print verification sheet' }));
+  expect(document.querySelector('[data-testid="print-container"]')).not.toBeNull();
+  act(() => { window.dispatchEvent(new Event('afterprint')); });
+  expect(document.querySelector('[data-testid="print-container"]')).toBeNull();
 });

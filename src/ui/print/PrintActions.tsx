@@ -57,21 +57,27 @@ function LabelSizeField({ onChange }: { onChange: (size: ReturnType<typeof parse
 /**
  * Print buttons for the current order: the verification sheet (A4 or US Letter) and the bag label
  * (4 × 6 in, 4 × 4 in or custom). The chosen printout renders into a print-only container outside
- * the app, so nothing of the workspace prints.
+ * the app while printing, so nothing of the workspace prints.
  */
 export function PrintActions({ report, catalog, policy, institution, sequence }: Props) {
   const { job, paper, setPaper, labelSize, setLabelSize, print } = usePrintJob();
   const [sizeOk, setSizeOk] = useState(true);
   const paperId = useId();
-  const options = useMemo<PrintOptions>(() => ({
-    institution: institution ?? policy.institution ?? DEMO_INSTITUTION,
-    paper, labelSize, catalog, policy,
-    compoundedAt: job.at, printedAt: job.at,
-    timeZone: Intl.DateTimeFormat().resolvedOptions().timeZone,
-    ...(sequence ? { sequence } : {}),
-  }), [institution, paper, labelSize, catalog, policy, job.at, sequence]);
+  const at = job?.at;
+  const options = useMemo<PrintOptions>(() => {
+    const when = at ?? new Date();
+    return {
+      institution: institution ?? policy.institution ?? DEMO_INSTITUTION,
+      paper, labelSize, catalog, policy,
+      compoundedAt: when, printedAt: when,
+      timeZone: Intl.DateTimeFormat().resolvedOptions().timeZone,
+      ...(sequence ? { sequence } : {}),
+    };
+  }, [institution, paper, labelSize, catalog, policy, at, sequence]);
   const label = useMemo(() => labelModel(report, options), [report, options]);
-  const printout = job.kind === 'sheet' ? <SheetView model={sheetModel(report, options)} /> : <LabelView model={label} />;
+  let printout = null;
+  if (job?.kind === 'sheet') printout = <SheetView model={sheetModel(report, options)} />;
+  else if (job?.kind === 'label') printout = <LabelView model={label} />;
   return (
     <div className="pr-actions" role="group" aria-label="Print">
       <span className="pr-field">
@@ -84,7 +90,7 @@ export function PrintActions({ report, catalog, policy, institution, sequence }:
       <LabelSizeField onChange={(r) => { setSizeOk(r.ok); if (r.ok) setLabelSize(r.value); }} />
       <button type="button" className="pr-button" disabled={!sizeOk} onClick={() => print('label')}>Print bag label</button>
       {label.fitWarning ? <span className="pr-field-problem" role="status">{label.fitWarning}</span> : null}
-      {createPortal(<div className="pr-portal" data-testid="print-container">{printout}</div>, document.body)}
+      {printout ? createPortal(<div className="pr-portal" data-testid="print-container">{printout}</div>, document.body) : null}
     </div>
   );
 }

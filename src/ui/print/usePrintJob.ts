@@ -10,11 +10,12 @@ export interface PrintJob {
 
 /**
  * The print container's state: the chosen printout, paper and label size. `print(kind)` puts the
- * printout in the container, synchronously, then opens the browser's print dialog. A custom label
- * size gets its page rule through the CSS object model (the app's CSP forbids inline styles).
+ * printout in the container, synchronously, then opens the browser's print dialog; when printing
+ * is over the container is emptied again. A custom label size gets its page rule through the CSS
+ * object model (the app's CSP forbids inline styles).
  */
 export function usePrintJob() {
-  const [job, setJob] = useState<PrintJob>(() => ({ kind: 'sheet', at: new Date() }));
+  const [job, setJob] = useState<PrintJob | null>(null);
   const [paper, setPaper] = useState<Paper>('a4');
   const [labelSize, setLabelSize] = useState<LabelSize>(LABEL_PRESETS[0] ?? { id: '4x6', width: 4, height: 6, unit: 'in' });
 
@@ -26,6 +27,12 @@ export function usePrintJob() {
     document.adoptedStyleSheets = [...document.adoptedStyleSheets, sheet];
     return () => { document.adoptedStyleSheets = document.adoptedStyleSheets.filter((s) => s !== sheet); };
   }, [labelSize]);
+
+  useEffect(() => {
+    const done = () => setJob(null);
+    window.addEventListener('afterprint', done);
+    return () => window.removeEventListener('afterprint', done);
+  }, []);
 
   function print(kind: PrintJob['kind']) {
     flushSync(() => setJob({ kind, at: new Date() }));
