@@ -3,6 +3,7 @@ import policyFile from '../data/policy.json';
 import adultPeripheral from '../data/demo/adult-peripheral.json';
 import adultCentral from '../data/demo/adult-central.json';
 import pretermNeonate from '../data/demo/preterm-neonate.json';
+import adultIons from '../data/demo/adult-ions.json';
 import { parseCatalog, type Catalog } from './core/catalog.ts';
 import { parsePolicy, type Policy } from './core/policy.ts';
 import { formatProblem } from './core/problems.ts';
@@ -15,6 +16,7 @@ export const DEMO_ORDERS: readonly { key: string; title: string; file: unknown }
   { key: 'adult-peripheral', title: 'Adult, peripheral 3-in-1', file: adultPeripheral },
   { key: 'adult-central', title: 'Adult, central 2-in-1', file: adultCentral },
   { key: 'preterm-neonate', title: 'Preterm neonate, central, per kg', file: pretermNeonate },
+  { key: 'adult-ions', title: 'Adult, central, ions ordered (allocate salts)', file: adultIons },
 ];
 
 function mustParse<T>(what: string, r: { ok: true; value: T } | { ok: false; problems: { path: string; message: string }[] }): T {

@@ -59,7 +59,8 @@ describe('osmocount check', () => {
     expect(await runCli(['check', 'batch.json', '--json'], io)).toBe(2);
     expect(err).toContain('batch.json: [1]: patient.weightKg: must be a number ≥ 0.1 and ≤ 700');
     const reports = z.array(reportSchema).parse(JSON.parse(out.join('')));
-    expect(reports.map((r) => [r.order, r.verdict])).toEqual([['MPH-2026-0413', 'pass'], ['HELD-1', 'block']]);
+    // The central demo warns on dose ranges (potassium 0.89 mmol/kg/day, phosphate 15 mmol/day under the shipped ranges).
+    expect(reports.map((r) => [r.order, r.verdict])).toEqual([['MPH-2026-0413', 'warn'], ['HELD-1', 'block']]);
   });
 
   test('NDJSON: one order per line, bad lines named', async () => {

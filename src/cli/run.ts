@@ -6,6 +6,7 @@ import type { Report } from '../core/report.ts';
 import { DEFAULT_CATALOG, DEFAULT_POLICY } from '../defaults.ts';
 import { ordersFromText, formatFileProblem, type FileProblem } from './inputs.ts';
 import { reportTable, CAUTION } from './table.ts';
+import { compound } from './compound.ts';
 import { print } from './print.ts';
 
 /** What the CLI may touch: injected so tests run it in memory. */
@@ -25,6 +26,12 @@ export const USAGE = `Usage:
   osmocount check FILE... [--catalog FILE] [--policy FILE] [--json]
       Check PN orders (one order, a JSON array of orders, or NDJSON per file).
       Exit 0: every order pass or warn; 1: any order held (block); 2: any input invalid.
+      An order with an "ions" block is allocated first (salts added), then checked.
+  osmocount compound FILE... [--catalog FILE] [--policy FILE] [--json]
+      Allocate each order's ion block: the electrolyte lines it adds (volumes rounded to
+      measurable increments), delivered vs ordered for every ion, problems with proposals,
+      and the suggested mixing sequence. Exit 0: every order met; 1: any order cannot be
+      met as written; 2: any input invalid or without an ion block.
   osmocount print FILE... --sheet|--label --out DIR [--catalog FILE] [--policy FILE]
         [--institution NAME] [--paper a4|letter] [--label-size 4x6|4x4|WxHin|WxHmm]
         [--compounded ISO-TIME] [--time-zone ZONE]
@@ -133,6 +140,8 @@ export async function runCli(argv: string[], io: CliIo): Promise<number> {
   switch (command) {
     case 'check':
       return check(rest, io);
+    case 'compound':
+      return compound(rest, io);
     case 'print':
       return print(rest, io);
     case undefined:

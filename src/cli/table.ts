@@ -1,7 +1,7 @@
 import type { Report } from '../core/report.ts';
 
 /** Left- or right-aligned columns of plain text. */
-function columns(rows: string[][], right: boolean[]): string[] {
+export function columns(rows: string[][], right: boolean[]): string[] {
   const widths = rows[0]?.map((_, c) => Math.max(...rows.map((r) => (r[c] ?? '').length))) ?? [];
   return rows.map((r) => r.map((cell, c) => (right[c] ? cell.padStart(widths[c] ?? 0) : cell.padEnd(widths[c] ?? 0))).join('  ').trimEnd());
 }
@@ -32,9 +32,13 @@ export function reportTable(r: Report): string {
   if (r.findings.length === 0) out.push('  Findings: none');
   for (const f of r.findings) {
     const vs = f.value !== null && f.limit !== null ? ` [${f.value} vs ${f.limit} ${f.unit ?? ''}]` : '';
-    out.push(`  ${SEVERITY_TAG[f.severity]} ${f.code}${f.nutrient ? ` (${f.nutrient})` : ''}: ${f.message}${vs}`);
+    const which = f.nutrient ?? f.screen;
+    out.push(`  ${SEVERITY_TAG[f.severity]} ${f.code}${which ? ` (${which})` : ''}: ${f.message}${vs}`);
     out.push(`       source: ${f.source}`);
   }
+  const predicted = r.information.predictedOsmolality;
+  if (predicted) out.push(`  Predicted osmolality (estimates only): ${predicted.estimates.map((e) => `${e.label} ${e.value.toFixed(1)} ${e.unit}`).join('; ')}`);
+  for (const s of r.suggestions ?? []) out.push(`  ${s.status === 'proposal' ? 'PROPOSAL' : 'NO PROPOSAL'} ${s.kind}: ${s.message}`);
   out.push(`  Verdict: ${VERDICT_TEXT[r.verdict]}`);
   return out.join('\n');
 }

@@ -1,32 +1,40 @@
-import { computeBag, type Bag } from './compute/bag.ts';
+import { computeBag } from './compute/bag.ts';
 import { CHECKS } from './checks/index.ts';
-import { verdictOf, type Finding, type Verdict } from './findings.ts';
+import { verdictOf } from './findings.ts';
 import { parseOrder, type Order } from './order.ts';
-import { toReport, type Report } from './report.ts';
+import { makeEvaluation, type Evaluation } from './evaluation.ts';
 import type { Catalog } from './catalog.ts';
 import type { Policy } from './policy.ts';
 import type { Result } from './problems.ts';
+import { compoundOrder, hasIons } from './compound/compoundOrder.ts';
+import { withIonFindings } from './compound/ionFindings.ts';
+import { suggest } from './solve/index.ts';
 
-/** Everything the engine knows about one bag. */
-export interface Evaluation {
-  order: Order;
-  bag: Bag;
-  findings: Finding[];
-  verdict: Verdict;
-  report: Report;
+export type { Evaluation } from './evaluation.ts';
+
+/** Options of one evaluation. */
+export interface EvaluateOptions {
+  /** Look for suggestions (default true; the solver re-checks its proposals without them). */
+  suggestions?: boolean;
 }
 
-/** Compute a validated order's bag, run every check, and build its report. */
-export function evaluateOrder(order: Order, catalog: Catalog, policy: Policy): Evaluation {
+/** Compute a validated order's bag, run every check, look for suggestions, and build its report. */
+export function evaluateOrder(order: Order, catalog: Catalog, policy: Policy, options: EvaluateOptions = {}): Evaluation {
   const bag = computeBag(order, policy);
   const findings = CHECKS.flatMap((check) => check(bag, policy));
   const verdict = verdictOf(findings);
-  return { order, bag, findings, verdict, report: toReport(bag, findings, verdict, catalog, policy) };
+  const suggestions = options.suggestions === false
+    ? []
+    : suggest({ order, bag, findings, verdict }, catalog, policy, (modified) => evaluateOrder(modified, catalog, policy, { suggestions: false }));
+  return makeEvaluation({ order, bag, findings, verdict, suggestions }, catalog, policy);
 }
 
-/** Validate an order file against the catalog, then evaluate it; invalid input returns its problems. */
+/** Validate an order file against the catalog (allocating its ion block, if any), then evaluate it; invalid input returns its problems. */
 export function checkOrder(input: unknown, catalog: Catalog, policy: Policy): Result<Evaluation> {
   const order = parseOrder(input, catalog);
   if (!order.ok) return order;
-  return { ok: true, value: evaluateOrder(order.value, catalog, policy) };
+  if (!hasIons(order.value)) return { ok: true, value: evaluateOrder(order.value, catalog, policy) };
+  // An ion order: allocate its electrolyte lines, then check the bag they make.
+  const compounded = compoundOrder(order.value, catalog, policy);
+  return { ok: true, value: withIonFindings(evaluateOrder(compounded.compounded, catalog, policy), compounded, catalog, policy) };
 }

@@ -8,7 +8,8 @@ import type { Policy } from './policy.ts';
 export type FindingCode =
   | 'osmolarity-peripheral' | 'dextrose-peripheral' | 'potassium-peripheral' | 'calcium-phosphate'
   | 'tna-stability' | 'gir' | 'dose-range' | 'aluminum' | 'volume-overflow' | 'volume-shortfall'
-  | 'missing-label-osmolarity' | 'empty-bag';
+  | 'missing-label-osmolarity' | 'empty-bag'
+  | 'ion-order' | 'measurable-volume';
 
 /** What a check found: severity, the value against its limit, why, and where the limit comes from. */
 export interface Finding {
@@ -22,6 +23,8 @@ export interface Finding {
   message: string;
   source: string;
   nutrient?: string;
+  /** Which screen of a check this is, when a check has several (e.g. `product`, `sum` for calcium–phosphate). */
+  screen?: string;
   /** Order line indexes the finding concerns (for highlighting). */
   lines: number[];
   /** Order fields the finding concerns, e.g. `volumeMl`, `route`. */
@@ -41,12 +44,13 @@ export function verdictOf(findings: readonly Finding[]): Verdict {
 }
 
 /** Base of a finding built from a policy rule (severity, unit, source come from the policy). */
-export function fromRule(code: FindingCode, rule: Rule, parts: { value: D | null; limit: D | null; decimals: number; message: string; lines?: number[]; fields?: string[]; nutrient?: string }): Finding {
+export function fromRule(code: FindingCode, rule: Rule, parts: { value: D | null; limit: D | null; decimals: number; message: string; lines?: number[]; fields?: string[]; nutrient?: string; screen?: string }): Finding {
   const f: Finding = {
     code, severity: rule.severity, unit: rule.unit, source: rule.source,
     value: parts.value, limit: parts.limit, decimals: parts.decimals, message: parts.message,
     lines: parts.lines ?? [], fields: parts.fields ?? [],
   };
   if (parts.nutrient !== undefined) f.nutrient = parts.nutrient;
+  if (parts.screen !== undefined) f.screen = parts.screen;
   return f;
 }

@@ -7,6 +7,8 @@ import type { Catalog } from './catalog.ts';
 import type { Finding, Verdict } from './findings.ts';
 import { AGE_GROUPS, ROUTES } from './order.ts';
 import { as, mmolToMEq } from './units.ts';
+import { predictedOsmolalityField, predictedOsmolalityReportSchema } from './compute/osmolality.ts';
+import { suggestionReportSchema } from './solve/report.ts';
 
 const num = z.number().refine(Number.isFinite, 'must be a finite number');
 const speciesRecord = z.record(z.enum(SPECIES_IDS), num);
@@ -73,6 +75,7 @@ export const reportSchema = z.object({
     temperatureC: num,
     plasmaOsmolality: z.object({ min: num, max: num, unit: z.string(), source: z.string() }),
     timesPlasma: z.object({ low: num, high: num }),
+    predictedOsmolality: predictedOsmolalityReportSchema.optional(),
   }),
   findings: z.array(z.object({
     code: z.string(),
@@ -83,10 +86,12 @@ export const reportSchema = z.object({
     message: z.string(),
     source: z.string(),
     nutrient: z.string().optional(),
+    screen: z.string().optional(),
     lines: z.array(z.number().int()),
     fields: z.array(z.string()),
   })),
   verdict: z.enum(['pass', 'warn', 'block']),
+  suggestions: z.array(suggestionReportSchema).optional(),
 });
 export type Report = z.infer<typeof reportSchema>;
 
@@ -175,6 +180,7 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
       temperatureC: round(temp, 1),
       plasmaOsmolality: { min: round(plasma.min, 0), max: round(plasma.max, 0), unit: plasma.unit, source: plasma.source },
       timesPlasma: { low: round(reported.div(plasma.max), 2), high: round(reported.div(plasma.min), 2) },
+      ...predictedOsmolalityField(bag),
     },
     findings: findings.map((f) => {
       const out: Report['findings'][number] = {
@@ -184,6 +190,7 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
         unit: f.unit, message: f.message, source: f.source, lines: f.lines, fields: f.fields,
       };
       if (f.nutrient !== undefined) out.nutrient = f.nutrient;
+      if (f.screen !== undefined) out.screen = f.screen;
       return out;
     }),
     verdict,

@@ -50,6 +50,7 @@ function run() {
   for (const o of forty) {
     const t0 = performance.now();
     const r = checkOrder(o, DEFAULT_CATALOG, DEFAULT_POLICY);
+    if (r.ok) void r.value.report.osmolarity.reported; // the report is part of the work
     times.push(performance.now() - t0);
     if (!r.ok) throw new Error(`bench order invalid: ${JSON.stringify(r.problems)}`);
   }
@@ -57,12 +58,12 @@ function run() {
   console.log(`40-line order: median ${(percentile(times, 0.5) * 1000).toFixed(0)} µs, p99 ${(percentile(times, 0.99) * 1000).toFixed(0)} µs (target: median under 1000 µs)`);
 
   // 2. Throughput over a generated batch of 10,000 orders of 10-40 lines, one core.
-  const batch = Array.from({ length: 10000 }, (_, i) => makeOrder(10 + Math.floor(rand() * 31), rand, i));
+  const batch = Array.from({ length: Number(process.env.BENCH_N ?? 10000) }, (_, i) => makeOrder(10 + Math.floor(rand() * 31), rand, i));
   const t0 = performance.now();
   let held = 0;
   for (const o of batch) {
     const r = checkOrder(o, DEFAULT_CATALOG, DEFAULT_POLICY);
-    if (r.ok && r.value.verdict === 'block') held += 1;
+    if (r.ok && r.value.report.verdict === 'block') held += 1;
   }
   const seconds = (performance.now() - t0) / 1000;
   console.log(`batch of ${batch.length} orders (10-40 lines): ${(batch.length / seconds).toFixed(0)} orders/s on one core, ${seconds.toFixed(2)} s, ${held} held (target: at least 20,000 orders/s)`);

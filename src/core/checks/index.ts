@@ -3,6 +3,12 @@ import { emptyBag, volumeOverflow, volumeShortfall } from './volumeOverflow.ts';
 import { osmolarityPeripheral } from './osmolarityPeripheral.ts';
 import { dextrosePeripheral } from './dextrosePeripheral.ts';
 import { missingLabelOsmolarity } from './missingLabelOsmolarity.ts';
+import { potassiumPeripheral } from './potassiumPeripheral.ts';
+import { calciumPhosphate } from './calciumPhosphate.ts';
+import { tnaStability } from './tnaStability.ts';
+import { gir } from './gir.ts';
+import { doseRange } from './doseRange.ts';
+import { aluminum } from './aluminum.ts';
 
 /** Every release check, in the order their findings are listed. Add a check here. */
 export const CHECKS: readonly Check[] = [
@@ -12,4 +18,10 @@ export const CHECKS: readonly Check[] = [
   osmolarityPeripheral,
   dextrosePeripheral,
   missingLabelOsmolarity,
+  potassiumPeripheral,
+  calciumPhosphate,
+  tnaStability,
+  gir,
+  doseRange,
+  aluminum,
 ];

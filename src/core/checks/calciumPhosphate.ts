@@ -1,0 +1,169 @@
+import { ZERO, type D } from '../decimal.ts';
+import { fmt } from '../format.ts';
+import { ruleFor, type Policy } from '../policy.ts';
+import { perLitre, type Bag } from '../compute/bag.ts';
+import { as, mmolToMEq } from '../units.ts';
+import { fromRule, type Check, type Finding } from '../findings.ts';
+import { asInfo, outside, settled, DEFER } from './limits.ts';
+import { curveFor, readCurve } from './solubilityCurve.ts';
+
+/** Calcium and phosphate of a bag as the screens read them, per litre of the final volume. */
+export interface CalciumPhosphateLevels {
+  calciumMmolPerL: D;
+  calciumMEqPerL: D;
+  /** Inorganic phosphate (sodium/potassium phosphates), mmol P/L: the only phosphate the screens count. */
+  inorganicPhosphateMmolPerL: D;
+  /** Organic phosphate (glycerophosphate), mmol P/L: reported separately, never in the inorganic term. */
+  organicPhosphateMmolPerL: D;
+}
+
+/** Calcium (mmol/L and mEq/L) and phosphate, inorganic and organic, of the bag. */
+export function calciumPhosphateLevels(bag: Bag): CalciumPhosphateLevels {
+  const V = bag.finalVolumeMl;
+  const calciumMmolPerL = perLitre(bag.speciesMmol.Ca, V);
+  return {
+    calciumMmolPerL,
+    calciumMEqPerL: mmolToMEq('Ca', as(calciumMmolPerL, 'mmol')),
+    inorganicPhosphateMmolPerL: perLitre(bag.speciesMmol.phosphate, V),
+    organicPhosphateMmolPerL: perLitre(bag.speciesMmol.glycerophosphate, V),
+  };
+}
+
+const SCREENS_ONLY = 'These are screens only: the solubility curve of the amino-acid product in this bag, at its amino-acid %, temperature and hang time, decides.';
+
+function linesWith(bag: Bag, test: (l: Bag['lines'][number]) => boolean): number[] {
+  return bag.lines.filter((l) => l.volumeMl.gt(0) && test(l)).map((l) => l.line.index);
+}
+
+/**
+ * Calcium–phosphate screens (`calcium-phosphate`): the Knight 1983 product of calcium and
+ * inorganic phosphate (mmol/L × mmol/L, limit per route), the sum screen (Ca mEq/L + P mmol/L),
+ * organic phosphate reported separately, calcium chloride with inorganic phosphate, the
+ * 3-in-1 note (a precipitate cannot be seen in an emulsion), and the amino-acid product's
+ * solubility curve when the policy holds one. Each screen within its limit is reported as
+ * information; limits, severities and sources come from the policy.
+ */
+export const calciumPhosphate: Check = (bag, policy) => {
+  if (bag.finalVolumeMl.isZero()) return [];
+  const lv = calciumPhosphateLevels(bag);
+  const pInorganic = lv.inorganicPhosphateMmolPerL;
+  const pOrganic = lv.organicPhosphateMmolPerL;
+  if (!lv.calciumMmolPerL.gt(0) || !(pInorganic.gt(0) || pOrganic.gt(0))) return [];
+  const age = bag.order.patient.ageGroup;
+  const route = bag.order.route;
+  const caLines = linesWith(bag, (l) => (l.product.perMl.Ca ?? ZERO).gt(0));
+  const pLines = linesWith(bag, (l) => (l.product.perMl.phosphate ?? ZERO).gt(0));
+  const organicLines = linesWith(bag, (l) => (l.product.perMl.glycerophosphate ?? ZERO).gt(0));
+  const curve = curveScreen(bag, policy, lv, [...caLines, ...pLines]);
+  const curveNote = curve.note ? ` ${curve.note}` : '';
+  const organicNote = pOrganic.gt(0) ? ` Organic phosphate (glycerophosphate) ${fmt(pOrganic, 2)} mmol/L is not counted in the inorganic term.` : '';
+  const out: Finding[] = [];
+
+  if (pInorganic.gt(0)) {
+    const productRule = ruleFor(policy, route === 'central' ? 'calcium-phosphate-product-central' : 'calcium-phosphate-product-peripheral', age);
+    if (productRule?.max) {
+      const product = lv.calciumMmolPerL.times(pInorganic);
+      const over = outside(product, productRule) === 'max';
+      const f = fromRule('calcium-phosphate', productRule, {
+        value: product, limit: productRule.max, decimals: 1, screen: 'product',
+        message: `Ca × P = ${fmt(lv.calciumMmolPerL, 2)} mmol/L calcium × ${fmt(pInorganic, 2)} mmol/L inorganic phosphate = ${fmt(product, 1)} mmol²/L², ${over ? 'over' : 'within'} the ${route} product screen of ${productRule.max.toString()}.${organicNote} ${SCREENS_ONLY}${curveNote} ${DEFER}`,
+        lines: [...caLines, ...pLines],
+      });
+      out.push(over ? f : asInfo(f));
+    }
+    const sumRule = ruleFor(policy, 'calcium-phosphate-sum', age);
+    if (sumRule?.max) {
+      const total = lv.calciumMEqPerL.plus(pInorganic);
+      const over = outside(total, sumRule) === 'max';
+      const f = fromRule('calcium-phosphate', sumRule, {
+        value: total, limit: sumRule.max, decimals: 1, screen: 'sum',
+        message: `Ca + P = ${fmt(lv.calciumMEqPerL, 2)} mEq/L calcium + ${fmt(pInorganic, 2)} mmol/L inorganic phosphate = ${fmt(total, 1)}, ${over ? 'over' : 'within'} the sum screen of ${sumRule.max.toString()}. ${SCREENS_ONLY} ${DEFER}`,
+        lines: [...caLines, ...pLines],
+      });
+      out.push(over ? f : asInfo(f));
+    }
+    const chlorideLines = linesWith(bag, (l) => (l.product.perMl.Ca ?? ZERO).gt(0) && (l.product.perMl.Cl ?? ZERO).gt(0));
+    const chlorideRule = ruleFor(policy, 'calcium-chloride-phosphate', age);
+    if (chlorideRule && chlorideLines.length > 0) {
+      out.push(fromRule('calcium-phosphate', chlorideRule, {
+        value: null, limit: null, decimals: 0, screen: 'calcium-chloride',
+        message: `Calcium chloride with inorganic phosphate: calcium chloride dissociates more than calcium gluconate, so less phosphate stays in solution, whatever the screens above say. Use calcium gluconate, or confirm this combination against a solubility curve made with calcium chloride. ${DEFER}`,
+        lines: [...chlorideLines, ...pLines],
+      }));
+    }
+  }
+
+  if (pOrganic.gt(0)) {
+    const organicRule = ruleFor(policy, 'calcium-phosphate-organic', age);
+    if (organicRule) {
+      const over = outside(pOrganic, organicRule) === 'max';
+      const inorganicText = pInorganic.gt(0) ? '' : ' With no inorganic phosphate, the inorganic screens are not triggered.';
+      const limitText = organicRule.max ? ` Tested up to ${organicRule.max.toString()} mmol/L${over ? ': this bag is beyond what was tested' : ''} (calcium here ${fmt(lv.calciumMmolPerL, 2)} mmol/L).` : '';
+      const f = fromRule('calcium-phosphate', organicRule, {
+        value: pOrganic, limit: organicRule.max, decimals: 2, screen: 'organic-phosphate',
+        message: `Organic phosphate (glycerophosphate) ${fmt(pOrganic, 2)} mmol/L is reported separately: organic phosphate salts stay in solution with calcium far above inorganic ones.${limitText}${inorganicText} ${DEFER}`,
+        lines: [...organicLines, ...caLines],
+      });
+      out.push(over ? f : asInfo(f));
+    }
+  }
+
+  if (curve.finding) out.push(curve.finding);
+
+  const lipidRule = ruleFor(policy, 'calcium-phosphate-in-lipid', age);
+  if (lipidRule && bag.grams.lipid.gt(0)) {
+    out.push(fromRule('calcium-phosphate', lipidRule, {
+      value: null, limit: null, decimals: 0, screen: 'hidden-by-lipid',
+      message: 'This is a 3-in-1: a calcium phosphate precipitate cannot be seen in the emulsion, so visual inspection cannot rule it out. Rely on the curve and the screens, and use the in-line filter the policy requires.',
+      lines: [...caLines, ...pLines, ...organicLines],
+    }));
+  }
+  return out;
+};
+
+/** The solubility-curve screen: a finding when a curve applies, else a note for the screens' messages. */
+function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, lines: number[]): { finding: Finding | null; note: string | null } {
+  const rule = ruleFor(policy, 'calcium-phosphate-curve', bag.order.patient.ageGroup);
+  if (!rule || !lv.inorganicPhosphateMmolPerL.gt(0)) return { finding: null, note: null };
+  const aaProducts = [...new Map(bag.lines.filter((l) => l.product.role === 'amino-acids' && l.volumeMl.gt(0)).map((l) => [l.product.id, l.product])).values()];
+  const only = aaProducts[0];
+  if (aaProducts.length === 0) return { finding: null, note: 'The bag has no amino acids: published curves do not cover it.' };
+  if (aaProducts.length > 1 || !only) return { finding: null, note: 'The bag mixes amino-acid products: no single product curve applies.' };
+  const aaPercent = bag.percent.aminoAcids;
+  const curve = curveFor(policy.solubilityCurves, only.id, aaPercent);
+  if (!curve) {
+    const productHasCurves = policy.solubilityCurves.some((c) => c.aminoAcidProduct === only.id);
+    return {
+      finding: null,
+      note: productHasCurves
+        ? `The policy's curves for ${only.name} start above this bag's ${fmt(aaPercent, 2)}% amino acids: check the published curve.`
+        : `No solubility curve for ${only.name} is on file in the policy: check the published curve.`,
+    };
+  }
+  const p = lv.inorganicPhosphateMmolPerL;
+  const ca = lv.calciumMEqPerL;
+  const reading = readCurve(curve, ca);
+  const conditions = [curve.temperatureC ? `${curve.temperatureC.toString()} °C` : '', curve.hours ? `${curve.hours.toString()} h` : ''].filter((x) => x !== '').join(', ');
+  const curveName = `the ${curve.id} curve (${only.name} at ${curve.aminoAcidPercent.toString()}% amino acids${conditions ? `, ${conditions}` : ''}; ${curve.source})`;
+  const source = `${rule.source}; curve: ${curve.source}`;
+  if (reading.where === 'beyond-last-point') {
+    return {
+      finding: { ...fromRule('calcium-phosphate', rule, {
+        value: ca, limit: reading.lastCalciumMEqPerL, decimals: 2, screen: 'solubility-curve',
+        message: `Calcium ${fmt(ca, 2)} mEq/L is beyond the last point of ${curveName}: the curve does not show any phosphate compatible at this calcium. ${DEFER}`,
+        lines,
+      }), unit: 'mEq/L', source },
+      note: null,
+    };
+  }
+  const limit = reading.maxPhosphateMmolPerL;
+  const margin = limit.minus(p);
+  const over = settled(p).gt(settled(limit));
+  const below = reading.where === 'below-first-point' ? ` (calcium is below the curve's first point, whose phosphate is used)` : '';
+  const f: Finding = { ...fromRule('calcium-phosphate', rule, {
+    value: p, limit, decimals: 2, screen: 'solubility-curve',
+    message: `Inorganic phosphate ${fmt(p, 2)} mmol/L against ${curveName}: at ${fmt(ca, 2)} mEq/L calcium the curve allows ${fmt(limit, 2)} mmol/L${below}; ${over ? `over it by ${fmt(margin.neg(), 2)}` : `margin ${fmt(margin, 2)}`} mmol/L. ${DEFER}`,
+    lines,
+  }), unit: 'mmol/L', source };
+  return { finding: over ? f : asInfo(f), note: null };
+}

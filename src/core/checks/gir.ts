@@ -1,0 +1,32 @@
+import { fmt, fmtTrim } from '../format.ts';
+import { girRuleFor } from '../policy.ts';
+import { fromRule, type Check } from '../findings.ts';
+import { asInfo, outside, rangeText, reportedLimit, AGE_LABEL, DEFER } from './limits.ts';
+
+/**
+ * Glucose infusion rate (`gir`) against the age group's range, or for children the range of
+ * their weight band when the policy has bands. GIR = dextrose g × 1000 ÷ (kg × minutes of
+ * infusion). Within the range it is reported as information.
+ */
+export const gir: Check = (bag, policy) => {
+  if (!bag.grams.dextrose.gt(0)) return [];
+  const { ageGroup, weightKg } = bag.order.patient;
+  const rule = girRuleFor(policy, ageGroup, weightKg);
+  if (!rule || (!rule.min && !rule.max)) return [];
+  const value = bag.girMgPerKgPerMin;
+  const crossed = outside(value, rule);
+  const band = 'upToKg' in rule ? (rule.upToKg ? ` (weight band up to ${rule.upToKg.toString()} kg)` : ' (heaviest weight band)') : '';
+  const who = `${AGE_LABEL[ageGroup]} of ${fmtTrim(weightKg, 3)} kg${band}`;
+  const range = rangeText(rule);
+  const message = crossed === 'max'
+    ? `GIR ${fmt(value, 2)} mg/kg/min is above the range for ${who}, ${range}: more glucose than can be oxidised (hyperglycaemia, fat deposition). Lower the dextrose or lengthen the infusion. ${DEFER}`
+    : crossed === 'min'
+      ? `GIR ${fmt(value, 2)} mg/kg/min is below the range for ${who}, ${range}: a risk of hypoglycaemia unless glucose comes from another infusion. ${DEFER}`
+      : `GIR ${fmt(value, 2)} mg/kg/min is within the range for ${who}, ${range}.`;
+  const f = fromRule('gir', rule, {
+    value, limit: reportedLimit(rule, crossed), decimals: 2, message,
+    lines: bag.lines.filter((l) => l.product.role === 'dextrose' && l.volumeMl.gt(0)).map((l) => l.line.index),
+    fields: ['hours'],
+  });
+  return [crossed ? f : asInfo(f)];
+};

@@ -1,0 +1,58 @@
+import type { D } from '../decimal.ts';
+import type { AgeGroup } from '../order.ts';
+import type { Rule } from '../policy.ts';
+import type { Finding } from '../findings.ts';
+
+/** Decimal places at which a value meets its bound (see `settled`). */
+const COMPARE_PLACES = 12;
+
+/**
+ * A value as compared with a bound: at 12 decimal places, so a figure that went through a
+ * division that cannot be exact (10 mEq calcium → 21.505… mL at 0.2325 mmol/mL → 9.999…9 mEq)
+ * meets its bound instead of falling a hair short of it. Far below any clinical precision.
+ */
+export function settled(value: D): D {
+  return value.toDecimalPlaces(COMPARE_PLACES);
+}
+
+/**
+ * Which bound of a rule a value falls outside: `min` when below it, `max` when above it, null
+ * within. A value equal to a bound is within. Example: 12 against min 4, max 12 → null.
+ */
+export function outside(value: D, rule: Pick<Rule, 'min' | 'max'>): 'min' | 'max' | null {
+  const v = settled(value);
+  if (rule.min && v.lt(rule.min)) return 'min';
+  if (rule.max && v.gt(rule.max)) return 'max';
+  return null;
+}
+
+/** The rule's range as text, with the numbers as the policy writes them: "1–2 mmol/kg/day", "≤ 5 mg/kg/min". */
+export function rangeText(rule: Pick<Rule, 'min' | 'max' | 'unit'>): string {
+  if (rule.min && rule.max) return `${rule.min.toString()}–${rule.max.toString()} ${rule.unit}`;
+  if (rule.max) return `≤ ${rule.max.toString()} ${rule.unit}`;
+  if (rule.min) return `≥ ${rule.min.toString()} ${rule.unit}`;
+  return `no limit set (${rule.unit})`;
+}
+
+/** The bound a finding reports: the one crossed, else the upper bound, else the lower one. */
+export function reportedLimit(rule: Pick<Rule, 'min' | 'max'>, crossed: 'min' | 'max' | null): D | null {
+  if (crossed === 'min') return rule.min;
+  if (crossed === 'max') return rule.max;
+  return rule.max ?? rule.min;
+}
+
+/** The same finding shown as information: the value was screened and is within its limit. */
+export function asInfo(f: Finding): Finding {
+  return { ...f, severity: 'info' };
+}
+
+/** How an age group reads in a message. */
+export const AGE_LABEL: Readonly<Record<AgeGroup, string>> = {
+  adult: 'an adult',
+  child: 'a child',
+  'term-neonate': 'a term neonate',
+  'preterm-neonate': 'a preterm neonate',
+};
+
+/** A sentence every screening message ends with: the limits are the institution's, the decision the pharmacist's. */
+export const DEFER = 'Local policy and the verifying pharmacist decide.';

@@ -1,0 +1,27 @@
+import { fmt } from '../format.ts';
+import { ruleFor } from '../policy.ts';
+import { perLitre } from '../compute/bag.ts';
+import { fromRule, type Check } from '../findings.ts';
+import { asInfo, outside, AGE_LABEL, DEFER } from './limits.ts';
+
+/**
+ * Potassium concentration on a peripheral bag (`potassium-peripheral`), mmol/L, against the age
+ * group's limit. No PN guideline sets one: the shipped limits are derived from the potassium
+ * phosphates label's maximum peripheral concentrations, and the policy's source says so.
+ */
+export const potassiumPeripheral: Check = (bag, policy) => {
+  if (bag.order.route !== 'peripheral' || bag.finalVolumeMl.isZero()) return [];
+  const rule = ruleFor(policy, 'potassium-peripheral', bag.order.patient.ageGroup);
+  const k = perLitre(bag.speciesMmol.K, bag.finalVolumeMl);
+  if (!rule?.max || !k.gt(0)) return [];
+  const over = outside(k, rule) === 'max';
+  const f = fromRule('potassium-peripheral', rule, {
+    value: k, limit: rule.max, decimals: 1,
+    message: over
+      ? `Potassium ${fmt(k, 1)} mmol/L is over the peripheral limit of ${rule.max.toString()} mmol/L for ${AGE_LABEL[bag.order.patient.ageGroup]}: concentrated potassium irritates a peripheral vein. Give it centrally, raise the volume or lower the potassium. ${DEFER}`
+      : `Potassium ${fmt(k, 1)} mmol/L is within the peripheral limit of ${rule.max.toString()} mmol/L.`,
+    lines: bag.lines.filter((l) => l.volumeMl.gt(0) && (l.product.perMl.K?.gt(0) ?? false)).map((l) => l.line.index),
+    fields: ['route', 'volumeMl'],
+  });
+  return [over ? f : asInfo(f)];
+};

@@ -1,0 +1,96 @@
+import { D, ZERO, sum } from '../decimal.ts';
+import { fmt } from '../format.ts';
+import { ruleFor, type Rule } from '../policy.ts';
+import { perLitre, type Bag } from '../compute/bag.ts';
+import { fromRule, type Check, type Finding } from '../findings.ts';
+import { asInfo, outside, rangeText, reportedLimit, DEFER } from './limits.ts';
+
+// Dextrose monohydrate C6H12O6·H2O 198.17 g/mol and anhydrous glucose 180.16 g/mol (IUPAC atomic weights):
+// the ASPEN minimum is written for the monohydrate, so anhydrous grams count × 198.17/180.16.
+const MONOHYDRATE_PER_ANHYDROUS = new D('198.17').div('180.16');
+const CATIONS = ['Na', 'K', 'Ca', 'Mg'] as const;
+
+/** Final dextrose % counted as monohydrate (hydrous) dextrose, the basis of the ASPEN 2014 minimum. */
+export function dextroseMonohydratePercent(bag: Bag): D {
+  if (bag.finalVolumeMl.isZero()) return ZERO;
+  const grams = sum(bag.lines.filter((l) => l.product.role === 'dextrose' && l.product.nutrient).map((l) => {
+    const n = l.product.nutrient;
+    if (!n) return ZERO;
+    const g = n.gramsPerMl.times(l.volumeMl);
+    return n.basis === 'anhydrous' ? g.times(MONOHYDRATE_PER_ANHYDROUS) : g;
+  }));
+  return grams.div(bag.finalVolumeMl).times(100);
+}
+
+/** Cation loads of a bag, mmol/L: monovalent (Na + K), divalent (Ca + Mg), trivalent (none in the species table). */
+export function cationLoads(bag: Bag): { monovalent: D; divalent: D; trivalent: D } {
+  const V = bag.finalVolumeMl;
+  const m = bag.speciesMmol;
+  return { monovalent: perLitre(m.Na.plus(m.K), V), divalent: perLitre(m.Ca.plus(m.Mg), V), trivalent: ZERO };
+}
+
+/**
+ * Critical aggregation number, mmol/L: CAN = a + 64·b + 729·c for mono-, di- and trivalent
+ * cations (Schulze–Hardy weights z⁶). Example: a 53.3, b 3.86, c 0 → 300.3.
+ */
+export function criticalAggregationNumber(loads: { monovalent: D; divalent: D; trivalent: D }): D {
+  return loads.monovalent.plus(loads.divalent.times(64)).plus(loads.trivalent.times(729));
+}
+
+function minimumFinding(rule: Rule | null, value: D, what: string, nutrient: string, lines: number[]): Finding | null {
+  if (!rule?.min) return null;
+  const crossed = outside(value, rule);
+  const f = fromRule('tna-stability', rule, {
+    value, limit: reportedLimit(rule, crossed), decimals: 2, screen: `${nutrient}-minimum`, nutrient,
+    message: crossed === 'min'
+      ? `3-in-1 final ${what} ${fmt(value, 2)}% is below the stability minimum of ${rule.min.toString()}%: the emulsion is less likely to stay stable for the usual hang and storage time. Consider a 2-in-1 with the lipid given separately, or shorten the storage time. ${DEFER}`
+      : `3-in-1 final ${what} ${fmt(value, 2)}% meets the stability minimum (${rangeText(rule)}).`,
+    lines,
+  });
+  return crossed ? f : asInfo(f);
+}
+
+/**
+ * 3-in-1 stability (`tna-stability`), for bags with lipid: final amino acids, dextrose
+ * (as monohydrate) and lipid against the policy's minimums (ASPEN 2014: 4%, 10%, 2%), the
+ * divalent cation load (Ca + Mg mmol/L) against its limit, and the critical aggregation number
+ * shown as information with its formula (a threshold only when the policy sets one).
+ */
+export const tnaStability: Check = (bag, policy) => {
+  if (!bag.grams.lipid.gt(0) || bag.finalVolumeMl.isZero()) return [];
+  const age = bag.order.patient.ageGroup;
+  const linesOf = (role: string) => bag.lines.filter((l) => l.product.role === role && l.volumeMl.gt(0)).map((l) => l.line.index);
+  const out: (Finding | null)[] = [
+    minimumFinding(ruleFor(policy, 'tna-amino-acids-min', age), bag.percent.aminoAcids, 'amino acids', 'amino-acids', linesOf('amino-acids')),
+    minimumFinding(ruleFor(policy, 'tna-dextrose-min', age), dextroseMonohydratePercent(bag), 'dextrose (as monohydrate)', 'dextrose', linesOf('dextrose')),
+    minimumFinding(ruleFor(policy, 'tna-lipid-min', age), bag.percent.lipid, 'lipid', 'lipid', linesOf('lipid')),
+  ];
+  const loads = cationLoads(bag);
+  const divalentLines = bag.lines.filter((l) => l.volumeMl.gt(0) && ((l.product.perMl.Ca ?? ZERO).gt(0) || (l.product.perMl.Mg ?? ZERO).gt(0))).map((l) => l.line.index);
+  const divalentRule = ruleFor(policy, 'tna-divalent', age);
+  if (divalentRule?.max) {
+    const crossed = outside(loads.divalent, divalentRule);
+    const f = fromRule('tna-stability', divalentRule, {
+      value: loads.divalent, limit: divalentRule.max, decimals: 2, screen: 'divalent-cations',
+      message: crossed
+        ? `Divalent cations (calcium + magnesium) ${fmt(loads.divalent, 2)} mmol/L are over the 3-in-1 limit of ${divalentRule.max.toString()} mmol/L: divalent cations destabilise the emulsion. ${DEFER}`
+        : `Divalent cations (calcium + magnesium) ${fmt(loads.divalent, 2)} mmol/L are within the 3-in-1 limit (${rangeText(divalentRule)}).`,
+      lines: divalentLines,
+    });
+    out.push(crossed ? f : asInfo(f));
+  }
+  const canRule = ruleFor(policy, 'tna-can', age);
+  if (canRule) {
+    const can = criticalAggregationNumber(loads);
+    const crossed = canRule.max ? outside(can, canRule) : null;
+    const formula = `CAN = a + 64b + 729c = ${fmt(loads.monovalent, 2)} + 64 × ${fmt(loads.divalent, 2)} + 729 × ${fmt(loads.trivalent, 2)} = ${fmt(can, 1)} mmol/L (a: Na + K, b: Ca + Mg, c: trivalent cations, each mmol/L)`;
+    const threshold = canRule.max ? `; the policy's threshold is ${canRule.max.toString()}` : '; no threshold is set, as no reliable published one exists';
+    const f = fromRule('tna-stability', canRule, {
+      value: can, limit: canRule.max, decimals: 1, screen: 'critical-aggregation-number',
+      message: `Critical aggregation number (information): ${formula}${threshold}.${crossed ? ` It is over the threshold. ${DEFER}` : ''}`,
+      lines: bag.lines.filter((l) => l.volumeMl.gt(0) && CATIONS.some((s) => (l.product.perMl[s] ?? ZERO).gt(0))).map((l) => l.line.index),
+    });
+    out.push(crossed ? f : asInfo(f));
+  }
+  return out.filter((f): f is Finding => f !== null);
+};

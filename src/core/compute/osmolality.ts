@@ -1,0 +1,156 @@
+import { z } from 'zod';
+import { D, ZERO, ONE, sum, round } from '../decimal.ts';
+import { SPECIES, type SpeciesId } from '../species.ts';
+import { perLitre, type Bag, type BagLine } from './bag.ts';
+
+/** One published way of estimating the osmolality a bag would measure, with how far to trust it. */
+export interface OsmolalityEstimate {
+  method: 'osmotic-coefficient' | 'pereira-da-silva-2004';
+  label: string;
+  value: D;
+  unit: 'mOsm/kg';
+  source: string;
+  /** How well the method's inputs are confirmed (shown beside the figure). */
+  status: string;
+  notes: string[];
+}
+
+/** Predicted osmolality: information only, never a check. */
+export interface PredictedOsmolality {
+  estimates: OsmolalityEstimate[];
+  note: string;
+}
+
+/** Osmotic coefficient φ of a salt, matched to a stock whose dissolved species are exactly these. */
+interface Coefficient { solute: string; species: readonly SpeciesId[]; phi: D }
+
+const COEFFICIENT_SOURCE = 'osmotic coefficients of physiological solutes at 37 °C, plasma-like concentration (University of British Columbia Zoology teaching table, from standard physical-chemistry data)';
+
+// φ at 37 °C from the teaching table above: NaCl 0.93, KCl 0.92, KH2PO4 0.87, CaCl2 0.86, MgCl2 0.89,
+// Na2SO4 0.74, MgSO4 0.58, glucose 1.01.
+const COEFFICIENTS: readonly Coefficient[] = [
+  { solute: 'NaCl', species: ['Na', 'Cl'], phi: new D('0.93') },
+  { solute: 'KCl', species: ['K', 'Cl'], phi: new D('0.92') },
+  { solute: 'KH2PO4', species: ['K', 'phosphate'], phi: new D('0.87') },
+  { solute: 'CaCl2', species: ['Ca', 'Cl'], phi: new D('0.86') },
+  { solute: 'MgCl2', species: ['Mg', 'Cl'], phi: new D('0.89') },
+  { solute: 'Na2SO4', species: ['Na', 'sulfate'], phi: new D('0.74') },
+  { solute: 'MgSO4', species: ['Mg', 'sulfate'], phi: new D('0.58') },
+];
+const GLUCOSE_PHI = new D('1.01');
+
+// Glucose anhydrous 180.16 g/mol, monohydrate 198.17 g/mol (IUPAC atomic weights).
+const ANHYDROUS_PER_MONOHYDRATE = new D('180.16').div('198.17');
+
+/** The φ for a stock's dissolved ions: the table's salt whose species match exactly, else null. */
+function ionCoefficient(line: BagLine): Coefficient | null {
+  const present = (Object.keys(line.product.perMl) as SpeciesId[]).filter((s) => line.product.perMl[s]?.gt(0)).sort();
+  return COEFFICIENTS.find((c) => c.species.length === present.length && [...c.species].sort().every((s, i) => s === present[i])) ?? null;
+}
+
+/**
+ * Osmotic-coefficient estimate: each line's ideal particles × the φ of its salt (glucose 1.01),
+ * ÷ the final volume. Particles with no φ in the table count as ideal (φ = 1) and are named.
+ * Example: 1000 mL holding 154 mmol NaCl (308 ideal mOsm) → 308 × 0.93 = 286.4.
+ */
+export function osmoticCoefficientEstimate(bag: Bag): OsmolalityEstimate {
+  const uncounted: string[] = [];
+  let total = ZERO;
+  for (const l of bag.lines) {
+    if (!l.volumeMl.gt(0) || !l.particleMOsm.gt(0)) continue;
+    const n = l.product.nutrient;
+    const nutrientMOsm = n ? n.gramsPerMl.times(n.mOsmPerGram).times(l.volumeMl) : ZERO;
+    const ionMOsm = l.particleMOsm.minus(nutrientMOsm);
+    const nutrientPhi = l.product.role === 'dextrose' ? GLUCOSE_PHI : ONE;
+    const ion = ionCoefficient(l);
+    total = total.plus(nutrientMOsm.times(nutrientPhi)).plus(ionMOsm.times(ion?.phi ?? ONE));
+    const idealNutrient = nutrientMOsm.gt(0) && l.product.role !== 'dextrose';
+    if (idealNutrient || (ionMOsm.gt(0) && !ion)) uncounted.push(l.product.name);
+  }
+  const notes = ['φ values are for plasma-like concentrations; PN is far more concentrated, so this is an approximation.'];
+  if (uncounted.length > 0) notes.push(`No coefficient in the table, counted as ideal (φ = 1): ${uncounted.join('; ')}.`);
+  return {
+    method: 'osmotic-coefficient',
+    label: 'Osmotic-coefficient estimate',
+    value: perLitre(total, bag.finalVolumeMl),
+    unit: 'mOsm/kg',
+    source: COEFFICIENT_SOURCE,
+    status: 'coefficients confirmed in a published table; their use for PN is an estimate',
+    notes,
+  };
+}
+
+/**
+ * Pereira-da-Silva 2004 equation for neonatal 2-in-1 PN, fitted to measured osmolality:
+ * amino acids (g/L) × 8 + glucose (g/L) × 7 + sodium (mmol/L) × 2 + phosphorus (mg/L) × 0.2 − 50.
+ * Glucose is taken as anhydrous (an unverified reading of the paper); phosphorus counts both
+ * phosphate species at 30.974 mg per mmol. Example: 25 g/L AA, 80 g/L glucose, 30 mmol/L Na,
+ * 310 mg/L P → 200 + 560 + 60 + 62 − 50 = 832. Null when the result is not positive.
+ */
+export function pereiraDaSilvaEstimate(bag: Bag): OsmolalityEstimate | null {
+  const V = bag.finalVolumeMl;
+  const glucoseG = sum(bag.lines.filter((l) => l.product.role === 'dextrose' && l.product.nutrient).map((l) => {
+    const n = l.product.nutrient;
+    if (!n) return ZERO;
+    const g = n.gramsPerMl.times(l.volumeMl);
+    return n.basis === 'hydrous' ? g.times(ANHYDROUS_PER_MONOHYDRATE) : g;
+  }));
+  const phosphorusMgPerL = perLitre(bag.speciesMmol.phosphate.plus(bag.speciesMmol.glycerophosphate), V).times(SPECIES.phosphate.molarMass);
+  const value = perLitre(bag.grams.aminoAcids, V).times(8)
+    .plus(perLitre(glucoseG, V).times(7))
+    .plus(perLitre(bag.speciesMmol.Na, V).times(2))
+    .plus(phosphorusMgPerL.times('0.2'))
+    .minus(50);
+  if (!value.gt(0)) return null;
+  const notes = [
+    'Fitted to measured osmolality of neonatal 2-in-1 PN; coefficients sit above the ideal values on purpose.',
+    'Glucose counted as anhydrous (the paper\'s basis is not confirmed).',
+  ];
+  if (bag.grams.lipid.gt(0)) notes.push('This bag holds lipid, which the equation was not fitted on.');
+  return {
+    method: 'pereira-da-silva-2004',
+    label: 'Pereira-da-Silva 2004 equation (neonatal)',
+    value,
+    unit: 'mOsm/kg',
+    source: 'Pereira-da-Silva et al., JPEN 2004;28:34 (neonatal 2-in-1 PN without lipid)',
+    status: 'equation from memory, corroborated by secondary sources; satisfactory for 3 of 6 formulations in one comparison (Madé 2018)',
+    notes,
+  };
+}
+
+const UNDERESTIMATE_NOTE = 'Calculated osmolarity under-estimates measured osmolality in concentrated PN, more so as concentration rises (Borenstein 2018: below the measured value in every one of 363 neonatal bags; JPEN 2016: by up to 16.7-33.2% in concentrated pediatric PN). These are estimates only: measure on an osmometer when it matters.';
+
+/** Every estimate that applies to the bag (Pereira-da-Silva for neonatal bags only); null for an empty bag. */
+export function predictOsmolality(bag: Bag): PredictedOsmolality | null {
+  if (bag.finalVolumeMl.isZero()) return null;
+  const estimates = [osmoticCoefficientEstimate(bag)];
+  const age = bag.order.patient.ageGroup;
+  if (age === 'term-neonate' || age === 'preterm-neonate') {
+    const p = pereiraDaSilvaEstimate(bag);
+    if (p) estimates.push(p);
+  }
+  return { estimates, note: UNDERESTIMATE_NOTE };
+}
+
+const num = z.number().refine(Number.isFinite, 'must be a finite number');
+
+/** `information.predictedOsmolality` in the report (optional: absent for an empty bag). */
+export const predictedOsmolalityReportSchema = z.object({
+  estimates: z.array(z.object({
+    method: z.enum(['osmotic-coefficient', 'pereira-da-silva-2004']),
+    label: z.string(),
+    value: num,
+    unit: z.literal('mOsm/kg'),
+    source: z.string(),
+    status: z.string(),
+    notes: z.array(z.string()),
+  })),
+  note: z.string(),
+});
+
+/** The report field for a bag, rounded at this edge to 0.1 mOsm/kg; `{}` when nothing is predicted. */
+export function predictedOsmolalityField(bag: Bag): { predictedOsmolality?: z.infer<typeof predictedOsmolalityReportSchema> } {
+  const p = predictOsmolality(bag);
+  if (!p) return {};
+  return { predictedOsmolality: { estimates: p.estimates.map((e) => ({ ...e, value: round(e.value, 1) })), note: p.note } };
+}
