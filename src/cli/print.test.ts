@@ -37,6 +37,7 @@ describe('osmocount print', () => {
     expect(label).toContain('03 Dec 2026 20:30');
     expect(label).toContain('1.2 µm');
     expect(written.get('out/MPH-2026-0414.sheet.html')).toContain('printed 02 Dec 2026 13:05');
+    expect(written.get('out/MPH-2026-0414.sheet.html')).toContain('Suggested mixing sequence'); // from the policy's compounding section
   });
 
   test('--paper, --label-size and a wall-clock --compounded in --time-zone', async () => {

@@ -7,7 +7,8 @@ import { renderLabelHtml, renderSheetHtml } from '../ui/print/html.tsx';
 import { labelModel } from '../ui/print/labelModel.ts';
 import { sheetModel } from '../ui/print/sheetModel.ts';
 import { parseDateTime } from '../ui/print/localTime.ts';
-import { PAPERS, checkTimeZone, parseLabelSize, type Paper, type PrintOptions } from '../ui/print/options.ts';
+import { sheetSequence } from '../ui/print/mixing.ts';
+import { PAPERS, checkTimeZone, parseLabelSize, type Paper, type PrintOptions, type PrintSequenceStep } from '../ui/print/options.ts';
 import { ordersFromText, formatFileProblem, type FileProblem } from './inputs.ts';
 import { EXIT, USAGE, loadSetup, type CliIo } from './run.ts';
 
@@ -111,6 +112,7 @@ export async function print(args: string[], io: CliIo): Promise<number> {
   const options: PrintOptions = { ...a.options, institution: a.options.institution ?? setup.policy.institution ?? NO_INSTITUTION, catalog: setup.catalog, policy: setup.policy };
 
   const reports: Report[] = [];
+  const sequences: (PrintSequenceStep[] | undefined)[] = [];
   const problems: FileProblem[] = [];
   for (const file of a.files) {
     let text: string;
@@ -124,8 +126,10 @@ export async function print(args: string[], io: CliIo): Promise<number> {
     problems.push(...found.problems);
     for (const o of found.orders) {
       const r = checkOrder(o.value, setup.catalog, setup.policy);
-      if (r.ok) reports.push(r.value.report);
-      else problems.push(...r.problems.map((problem) => ({ file: o.file, where: o.where, problem })));
+      if (r.ok) {
+        reports.push(r.value.report);
+        sequences.push(sheetSequence(r.value.order.lines, setup.policy));
+      } else problems.push(...r.problems.map((problem) => ({ file: o.file, where: o.where, problem })));
     }
   }
   for (const p of problems) io.stderr(formatFileProblem(p));
@@ -134,7 +138,8 @@ export async function print(args: string[], io: CliIo): Promise<number> {
   let writeFailed = false;
   for (const [i, report] of reports.entries()) {
     const outputs: [string, string][] = [];
-    if (a.sheet) outputs.push([`${names[i]}.sheet.html`, renderSheetHtml(sheetModel(report, options))]);
+    const sequence = sequences[i];
+    if (a.sheet) outputs.push([`${names[i]}.sheet.html`, renderSheetHtml(sheetModel(report, sequence ? { ...options, sequence } : options))]);
     if (a.label) {
       const label = labelModel(report, options);
       if (label.fitWarning) io.stderr(`warning: ${report.order}: ${label.fitWarning}`);

@@ -26,7 +26,7 @@ export function App() {
           </select>
         </label>
         <span className="context">Catalog: {DEFAULT_CATALOG.name} · Policy: {DEFAULT_POLICY.name}</span>
-        {result?.ok ? <PrintActions report={result.value.report} catalog={DEFAULT_CATALOG} policy={DEFAULT_POLICY} /> : null}
+        {result?.ok ? <PrintActions report={result.value.report} orderLines={result.value.order.lines} catalog={DEFAULT_CATALOG} policy={DEFAULT_POLICY} /> : null}
       </header>
       <Caution />
       {result === null ? null : result.ok ? (

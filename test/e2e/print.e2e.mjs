@@ -161,12 +161,15 @@ export const tests = [
         await toPdf(h, readFileSync(join(dir, paper, `${ORDER_ID[key]}.sheet.html`), 'utf8'), pdf, tab);
         const info = pdfInfo(pdf);
         equal(`${info.width}x${info.height}`, size, `${key}: sheet page size (${paper})`);
-        ok(info.pages <= 2, `${key}: sheet on at most two pages (${info.pages})`);
+        // Every page is numbered and names the order and patient (a loose page still says which bag).
+        const raw = pdfText(pdf);
+        equal(raw.split('\f').filter((p) => p.includes(`Order ${ORDER_ID[key]} · patient ID`) && p.includes(`of ${info.pages}`)).length, info.pages, `${key}: order id and page number on each of ${info.pages} pages`);
         // Captions are set in capitals by the style sheet, so compare without case.
         const t = flat(pdfText(pdf)).toLowerCase();
         for (const s of ['Marren Point Hospital', 'PN verification sheet', `Order ${ORDER_ID[key]}`, 'Prepared by', 'Checked by', 'Name or initials',
           'Date and time', 'Particle count', 'Label sum', 'Reported', 'Peripheral limit', 'Electrolytes', 'Findings', 'Verdict:', 'a checking aid',
-          'local policy and the verifying pharmacist decide', 'PN is a high-alert medication', `${BUD_ROOM} (30 h)`, 'Page 1 of']) {
+          'local policy and the verifying pharmacist decide', 'PN is a high-alert medication', `${BUD_ROOM} (30 h)`, 'Page 1 of',
+          'Suggested mixing sequence']) {
           ok(t.includes(s.toLowerCase()), `${key} sheet (${paper}): "${s}"`);
         }
         if (paper === 'a4-4x6') pngs(pdf, `print-sheet-a4-${key}`);
@@ -176,7 +179,10 @@ export const tests = [
     // Dextrose 70%: 300 g ÷ 0.7 g/mL = 428.57 mL; × 3.532 mOsm/mL = 1513.7 mOsm (field guide §9.4 D1: 1513.9 with 5.046 mOsm/g).
     ok(/Dextrose 70% injection .*300 g\/day 428\.57 mL 1513\.7 mOsm/.test(central), 'dextrose line with volume and mOsm');
     ok(central.includes('is over the peripheral limit of 900 mOsm/L: central line only'), 'reported osmolarity against the limit');
-    ok(central.toLowerCase().includes('verdict: pass — no finding holds this bag.'), 'verdict');
+    // The sheet's verdict is the engine's (osmocount check --json on the same order).
+    const verdict = JSON.parse(osmocount(['check', 'data/demo/adult-central.json', '--json']).stdout).verdict;
+    const word = { pass: 'pass — no finding holds this bag', warn: 'review — warnings need a pharmacist’s review', block: 'hold — do not compound as ordered' }[verdict];
+    ok(central.toLowerCase().includes(`verdict: ${word}`), `verdict ${verdict} printed`);
     const neonate = flat(pdfText(join(dir, 'preterm-neonate-sheet-a4-4x6.pdf')));
     ok(/3\.85 g\/day 3\.5 g\/kg\/day 38\.50 mL/.test(neonate), 'neonate line per day and per kg; 3.85 g ÷ 0.1 g/mL');
     await tab.context.close();
@@ -265,6 +271,8 @@ export const tests = [
     equal(`${info.width}x${info.height}`, '595x842', 'A4 from the app');
     const t = flat(pdfText(pdf));
     ok(t.includes('PN verification sheet') && !t.includes('Demo order') && !t.includes('PN admixture check'), 'only the sheet prints');
+    // The page foot comes from a style sheet added through the CSS object model (the CSP forbids inline styles).
+    ok(t.includes('Order MPH-2026-0413 · patient ID MRN-301977'), 'order id at the foot of the in-app sheet');
     pngs(pdf, 'print-app-sheet');
     await page.emulateMedia({ media: 'screen' });
     ok(!(await container.isVisible()), 'the print container stays hidden on screen');

@@ -1,14 +1,18 @@
 import { useId, useMemo, useState } from 'react';
 import { createPortal } from 'react-dom';
 import type { Catalog } from '../../core/catalog.ts';
+import type { OrderLine } from '../../core/order.ts';
 import type { Policy } from '../../core/policy.ts';
 import type { Report } from '../../core/report.ts';
 import { LabelView } from './LabelView.tsx';
 import { SheetView } from './SheetView.tsx';
 import { labelModel } from './labelModel.ts';
 import { sheetModel } from './sheetModel.ts';
-import { LABEL_PRESETS, PAPERS, PAPER_TEXT, labelSizeText, parseLabelSize, type PrintOptions, type PrintSequenceStep } from './options.ts';
+import { LABEL_PRESETS, PAPERS, PAPER_TEXT, customLabelCss, labelSizeText, parseLabelSize, type PrintOptions, type PrintSequenceStep } from './options.ts';
+import { sheetPageCss } from './pageCss.ts';
+import { useAdoptedCss } from './useAdoptedCss.ts';
 import { usePrintJob } from './usePrintJob.ts';
+import { sheetSequence } from './mixing.ts';
 import './print.css';
 
 /** The demo's institution (a fictional hospital); a deployment passes its own name. */
@@ -19,6 +23,9 @@ interface Props {
   catalog: Catalog;
   policy: Policy;
   institution?: string;
+  /** The order's lines, for the suggested mixing sequence on the sheet (from the policy's compounding section). */
+  orderLines?: readonly OrderLine[];
+  /** A mixing sequence given directly (takes precedence over one made from orderLines). */
   sequence?: readonly PrintSequenceStep[];
 }
 
@@ -59,11 +66,12 @@ function LabelSizeField({ onChange }: { onChange: (size: ReturnType<typeof parse
  * (4 × 6 in, 4 × 4 in or custom). The chosen printout renders into a print-only container outside
  * the app while printing, so nothing of the workspace prints.
  */
-export function PrintActions({ report, catalog, policy, institution, sequence }: Props) {
+export function PrintActions({ report, catalog, policy, institution, orderLines, sequence: given }: Props) {
   const { job, paper, setPaper, labelSize, setLabelSize, print } = usePrintJob();
   const [sizeOk, setSizeOk] = useState(true);
   const paperId = useId();
   const at = job?.at;
+  const sequence = useMemo(() => given ?? (orderLines ? sheetSequence(orderLines, policy) : undefined), [given, orderLines, policy]);
   const options = useMemo<PrintOptions>(() => {
     const when = at ?? new Date();
     return {
@@ -75,8 +83,10 @@ export function PrintActions({ report, catalog, policy, institution, sequence }:
     };
   }, [institution, paper, labelSize, catalog, policy, at, sequence]);
   const label = useMemo(() => labelModel(report, options), [report, options]);
+  const sheet = useMemo(() => (job?.kind === 'sheet' ? sheetModel(report, options) : null), [job?.kind, report, options]);
+  useAdoptedCss(customLabelCss(labelSize) + (sheet ? sheetPageCss(sheet) : ''));
   let printout = null;
-  if (job?.kind === 'sheet') printout = <SheetView model={sheetModel(report, options)} />;
+  if (sheet) printout = <SheetView model={sheet} />;
   else if (job?.kind === 'label') printout = <LabelView model={label} />;
   return (
     <div className="pr-actions" role="group" aria-label="Print">

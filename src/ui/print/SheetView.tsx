@@ -22,7 +22,7 @@ export function SheetView({ model: m }: { model: SheetModel }) {
         <FieldList fields={m.order} className="pr-grid5" />
       </section>
 
-      <section className="pr-block">
+      <section className="pr-block pr-breakable">
         <h2>Lines: stock, amount, volume to add, particles</h2>
         <TableView table={m.lines} className="pr-lines" label="Order lines" />
       </section>
@@ -47,19 +47,21 @@ export function SheetView({ model: m }: { model: SheetModel }) {
         ))}
       </div>
 
-      <section className="pr-block">
+      <section className="pr-block pr-breakable">
         <h2>Findings</h2>
         {m.findings.length === 0 ? <p className="pr-none">No findings under the policy in force.</p> : (
           <table className="pr-table pr-findings" aria-label="Findings">
-            <thead><tr><th scope="col">Severity</th><th scope="col">Finding</th><th scope="col" className="pr-num">Value</th><th scope="col" className="pr-num">Limit</th><th scope="col">Source</th></tr></thead>
+            <thead><tr><th scope="col">Severity</th><th scope="col">Finding and source</th><th scope="col" className="pr-num">Value</th><th scope="col" className="pr-num">Limit</th></tr></thead>
             <tbody>
               {m.findings.map((f, i) => (
                 <tr key={i} className={`pr-sev-${f.severity}`}>
                   <td className="pr-sev">{f.severityText}</td>
-                  <td><span className="pr-code">{f.code}</span> {f.message}</td>
+                  <td>
+                    <span className="pr-code">{f.code}</span> {f.message}
+                    <span className="pr-src pr-finding-src">Source: {f.source}</span>
+                  </td>
                   <td className="pr-num">{f.value}</td>
                   <td className="pr-num">{f.limit}</td>
-                  <td className="pr-src">{f.source}</td>
                 </tr>
               ))}
             </tbody>
@@ -74,7 +76,7 @@ export function SheetView({ model: m }: { model: SheetModel }) {
       </section>
 
       {m.sequence ? (
-        <section className="pr-block">
+        <section className="pr-block pr-breakable">
           <h2>Suggested mixing sequence</h2>
           <ol className="pr-sequence">
             {m.sequence.map((s) => (

@@ -4,6 +4,7 @@ import { LabelView } from './LabelView.tsx';
 import { SheetView } from './SheetView.tsx';
 import type { LabelModel, SheetModel } from './model.ts';
 import { customLabelCss, labelSizeText, PAPER_TEXT } from './options.ts';
+import { sheetPageCss } from './pageCss.ts';
 
 /** Text escaped for HTML (element content and quoted attributes). */
 export function escapeHtml(text: string): string {
@@ -31,7 +32,7 @@ function documentHtml(title: string, body: string, extraCss: string): string {
  * printing headless; every text is escaped by the renderer.
  */
 export function renderSheetHtml(model: SheetModel): string {
-  return documentHtml(`${model.title} — ${model.orderId} (${PAPER_TEXT[model.paper]})`, renderToStaticMarkup(<SheetView model={model} />), '');
+  return documentHtml(`${model.title} — ${model.orderId} (${PAPER_TEXT[model.paper]})`, renderToStaticMarkup(<SheetView model={model} />), sheetPageCss(model));
 }
 
 /** The bag label as one self-contained HTML document, its page the label's size; the barcode is inline SVG. */

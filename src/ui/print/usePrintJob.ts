@@ -1,6 +1,6 @@
 import { useEffect, useState } from 'react';
 import { flushSync } from 'react-dom';
-import { customLabelCss, LABEL_PRESETS, type LabelSize, type Paper } from './options.ts';
+import { LABEL_PRESETS, type LabelSize, type Paper } from './options.ts';
 
 /** Which printout is in the print container, and when it was asked for. */
 export interface PrintJob {
@@ -11,22 +11,12 @@ export interface PrintJob {
 /**
  * The print container's state: the chosen printout, paper and label size. `print(kind)` puts the
  * printout in the container, synchronously, then opens the browser's print dialog; when printing
- * is over the container is emptied again. A custom label size gets its page rule through the CSS
- * object model (the app's CSP forbids inline styles).
+ * is over the container is emptied again.
  */
 export function usePrintJob() {
   const [job, setJob] = useState<PrintJob | null>(null);
   const [paper, setPaper] = useState<Paper>('a4');
   const [labelSize, setLabelSize] = useState<LabelSize>(LABEL_PRESETS[0] ?? { id: '4x6', width: 4, height: 6, unit: 'in' });
-
-  useEffect(() => {
-    const css = customLabelCss(labelSize);
-    if (css === '' || typeof CSSStyleSheet === 'undefined' || !('adoptedStyleSheets' in document)) return undefined;
-    const sheet = new CSSStyleSheet();
-    sheet.replaceSync(css);
-    document.adoptedStyleSheets = [...document.adoptedStyleSheets, sheet];
-    return () => { document.adoptedStyleSheets = document.adoptedStyleSheets.filter((s) => s !== sheet); };
-  }, [labelSize]);
 
   useEffect(() => {
     const done = () => setJob(null);
