@@ -81,7 +81,9 @@ export function SheetView({ model: m }: { model: SheetModel }) {
           <ol className="pr-sequence">
             {m.sequence.map((s) => (
               <li key={s.step}>
-                <strong>{s.lines}</strong> {s.mix} <span className="pr-src">{s.reason} Source: {s.source}</span>
+                <strong>{s.lines}</strong> {s.mix}
+                <span className="pr-seq-reason">{s.reason}</span>
+                <span className="pr-src pr-finding-src">Source: {s.source}</span>
               </li>
             ))}
           </ol>

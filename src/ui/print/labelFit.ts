@@ -54,9 +54,11 @@ const COMPACT: Layout = { base: 245, emphaticRoute: 22, threeInOne: 10, hold: 19
 
 function rowHeight(r: IngredientRow, l: Layout, columnPt: number, compact: boolean): number {
   const amounts = [r.perKg, r.perDay].filter((a): a is string => a !== null);
-  const amountPt = compact
-    ? Math.max(...amounts.map((a) => textWidthPt(a, l.rowPt, true)))
-    : amounts.reduce((sum, a) => sum + textWidthPt(a, l.rowPt, true), 0) + (amounts.length - 1) * 8;
+  // Regular layout: the per-kg and per-day amounts sit in columns at least 1.1 in and 0.9 in wide (print.css).
+  const minPt = [r.perKg === null ? 0 : 79.2, 64.8];
+  const widths = [r.perKg, r.perDay].map((a, i) => (a === null ? null : Math.max(textWidthPt(a, l.rowPt, true), compact ? 0 : minPt[i] ?? 0)));
+  const present = widths.filter((w): w is number => w !== null);
+  const amountPt = compact ? Math.max(...present) : present.reduce((sum, w) => sum + w, 0) + (present.length - 1) * 8;
   const namePt = Math.max(columnPt - amountPt - (compact ? 4 : 6), columnPt * 0.3);
   const left = lines(r.name, namePt, l.rowPt) * l.rowPx + lines(r.note ?? '', namePt, l.notePt) * l.notePx;
   const right = (compact ? amounts.length : 1) * l.rowPx;
