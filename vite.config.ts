@@ -37,6 +37,8 @@ function nodeBundle(entry: string, outDir: string, fileName: string): UserConfig
       rollupOptions: { output: { entryFileNames: fileName } },
     },
     ssr: { noExternal: true },
+    // React (the printouts' HTML renderer) in its production build, not chosen at run time.
+    define: { 'process.env.NODE_ENV': JSON.stringify('production') },
   };
 }
 
@@ -53,6 +55,7 @@ export default defineConfig(({ mode }) =>
         test: {
           environment: 'node',
           setupFiles: ['./src/test-setup.ts'],
+          css: { include: [/print\.css/] },
           include: ['src/**/*.test.{ts,tsx}', 'test/**/*.test.{ts,tsx}'],
         },
       },

@@ -22,6 +22,10 @@ export interface CliIo {
   flush?(): Promise<void>;
   /** A monotonic clock in milliseconds. */
   now?(): number;
+  /** The wall clock (the printing time and the default compounding time); the system clock when absent. */
+  wallClock?(): Date;
+  /** Write a text file, creating its folder; absent where nothing may be written. */
+  writeFile?(path: string, text: string): Promise<void>;
   /** Present only when stderr is a terminal: draws the progress line (the text carries its own `\r`). */
   progress?(text: string): void;
   /** True when stdout is that same terminal, so the progress line is wiped before each report too. */

@@ -1,7 +1,7 @@
 import { createReadStream } from 'node:fs';
-import { readFile, readdir, stat } from 'node:fs/promises';
+import { mkdir, readFile, readdir, stat, writeFile } from 'node:fs/promises';
 import { once } from 'node:events';
-import { join } from 'node:path';
+import { dirname, join } from 'node:path';
 import { performance } from 'node:perf_hooks';
 import type { CliIo, PathKind } from './io.ts';
 
@@ -32,6 +32,11 @@ export function nodeIo(): CliIo {
       if (process.stdout.writableNeedDrain) await once(process.stdout, 'drain');
     },
     now: () => performance.now(),
+    wallClock: () => new Date(),
+    writeFile: async (path, text) => {
+      await mkdir(dirname(path), { recursive: true });
+      await writeFile(path, text, 'utf8');
+    },
   };
   if (process.stderr.isTTY) {
     io.progress = (text) => { process.stderr.write(text); };

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import type { Catalog } from '../core/catalog.ts';
 import type { Policy } from '../core/policy.ts';
 import type { Problem } from '../core/problems.ts';
@@ -13,6 +13,9 @@ import { ProblemsList } from './components/ProblemsList.tsx';
 import { OrderView } from './OrderView.tsx';
 import { CatalogView } from './catalog/CatalogView.tsx';
 import { PolicyView } from './policy/PolicyView.tsx';
+import { PrintActions } from './print/PrintActions.tsx';
+import { parseOrder } from '../core/order.ts';
+import { toOrderFile } from './order/draft.ts';
 
 function demoDoc(key: string): OrderDoc | null {
   const demo = DEMO_ORDERS.find((d) => d.key === key);
@@ -38,6 +41,11 @@ export function App() {
     ws.actions.edit(label, () => doc);
   };
   const report = ws.figures?.report ?? null;
+  // The committed order's lines, for the mixing sequence on the printed sheet.
+  const orderLines = useMemo(() => {
+    const r = parseOrder(toOrderFile(ws.doc.order), catalog.catalog);
+    return r.ok ? r.value.lines : undefined;
+  }, [ws.doc, catalog.catalog]);
 
   return (
     <div className="app">
@@ -53,6 +61,7 @@ export function App() {
           }}
           onOpenProblems={setOpenProblems}
           undoLabel={ws.undoLabel} redoLabel={ws.redoLabel} onUndo={ws.actions.undo} onRedo={ws.actions.redo}
+          printSlot={report && !ws.stale ? <PrintActions report={report} catalog={catalog.catalog} policy={policy.policy} {...(orderLines ? { orderLines } : {})} /> : null}
         />
         {view === 'order' ? <VerdictBar report={report} stale={ws.stale} problemCount={ws.problems.count} /> : null}
       </div>
