@@ -37,6 +37,8 @@ function nodeBundle(entry: string, outDir: string, fileName: string): UserConfig
       rollupOptions: { output: { entryFileNames: fileName } },
     },
     ssr: { noExternal: true },
+    // React (the printouts' HTML renderer) in its production build, not chosen at run time.
+    define: { 'process.env.NODE_ENV': JSON.stringify('production') },
   };
 }
 
@@ -45,12 +47,15 @@ export default defineConfig(({ mode }) =>
     ? nodeBundle('src/cli/main.ts', 'dist/cli', 'osmocount.mjs')
     : mode === 'bench'
     ? nodeBundle('test/bench/bench.ts', 'dist/bench', 'bench.mjs')
+    : mode === 'profile'
+    ? nodeBundle('test/bench/profile.ts', 'dist/profile', 'profile.mjs')
     : {
         plugins: [react(), contentSecurityPolicy()],
         build: { outDir: 'dist/app', emptyOutDir: true, chunkSizeWarningLimit: 1500 },
         test: {
           environment: 'node',
           setupFiles: ['./src/test-setup.ts'],
+          css: { include: [/print\.css/] },
           include: ['src/**/*.test.{ts,tsx}', 'test/**/*.test.{ts,tsx}'],
         },
       },

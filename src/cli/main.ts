@@ -1,10 +1,10 @@
-import { readFile } from 'node:fs/promises';
 import { runCli } from './run.ts';
+import { nodeIo } from './nodeIo.ts';
 
 // The command-line entry: real files and streams around the in-memory runCli.
-const code = await runCli(process.argv.slice(2), {
-  readFile: (path) => readFile(path, 'utf8'),
-  stdout: (text) => process.stdout.write(`${text}\n`),
-  stderr: (text) => process.stderr.write(`${text}\n`),
+// A reader that goes away (`osmocount check … | head`) ends the run quietly.
+process.stdout.on('error', (e: NodeJS.ErrnoException) => {
+  if (e.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+  throw e;
 });
-process.exitCode = code;
+process.exitCode = await runCli(process.argv.slice(2), nodeIo());

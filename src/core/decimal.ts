@@ -35,6 +35,7 @@ export function sum(values: Iterable<D>): D {
  * Never returns NaN or Infinity: a non-finite input is a programming error and throws.
  */
 export function round(value: D, places: number): number {
+  if (value.isZero()) return 0;
   if (!value.isFinite()) throw new Error('non-finite value reached the display edge');
   const n = value.toDecimalPlaces(places, Decimal.ROUND_HALF_EVEN).toNumber();
   return Object.is(n, -0) ? 0 : n;

@@ -4,6 +4,7 @@ import { decimal, optionalDecimal, parseWith } from './schema.ts';
 import { AGE_GROUPS, type AgeGroup } from './order.ts';
 import type { Problem, Result } from './problems.ts';
 import { compoundingSchema, type CompoundingPolicy } from './compound/compoundingPolicy.ts';
+import { beyondUseSchema, toBeyondUsePolicy, type BeyondUsePolicy } from './beyondUse.ts';
 
 export const SEVERITIES = ['block', 'warn', 'info'] as const;
 /** How much a finding holds the bag back: `block` stops it, `warn` needs a look, `info` informs. */
@@ -268,6 +269,7 @@ export const policyFileSchema = z.object({
     osmoticPressureTemperatureC: referenceSchema,
   }),
   compounding: compoundingSchema.optional(),
+  beyondUse: beyondUseSchema.optional(),
 });
 
 export type RuleCode = keyof z.output<typeof policyFileSchema>['rules'];
@@ -293,6 +295,8 @@ export interface Policy {
   };
   /** Measurable volumes, salt choices and mixing sequence for ion orders; null when the policy has none. */
   compounding: CompoundingPolicy | null;
+  /** Beyond-use durations and storage for the bag label; null when the policy has none. */
+  beyondUse: BeyondUsePolicy | null;
 }
 
 function toRule(r: RuleInput): Rule | null {
@@ -346,6 +350,7 @@ export function parsePolicy(input: unknown): Result<Policy> {
         osmoticPressureTemperatureC: { value: ref.osmoticPressureTemperatureC.value as D, source: ref.osmoticPressureTemperatureC.source },
       },
       compounding: p.compounding ?? null,
+      beyondUse: p.beyondUse ? toBeyondUsePolicy(p.beyondUse) : null,
     },
   };
 }

@@ -110,6 +110,8 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
   const plasma = policy.reference.plasmaOsmolality;
   const temp = policy.reference.osmoticPressureTemperatureC.value;
   const reported = bag.osmolarity.reported;
+  const perL = {} as Record<SpeciesId, D>;
+  for (const s of SPECIES_IDS) perL[s] = perLitre(bag.speciesMmol[s], V);
   return {
     format: 'osmocount-report',
     version: 1,
@@ -154,8 +156,8 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
       peripheralLimit: limit ? round(limit, 1) : null,
     },
     totals: {
-      mmolPerL: speciesMap((s) => perLitre(bag.speciesMmol[s], V), 2),
-      mEqPerL: speciesMap((s) => (isCharged(s) ? mmolToMEq(s, as(perLitre(bag.speciesMmol[s], V), 'mmol')) : ZERO), 2),
+      mmolPerL: speciesMap((s) => perL[s], 2),
+      mEqPerL: speciesMap((s) => (isCharged(s) ? mmolToMEq(s, as(perL[s], 'mmol')) : ZERO), 2),
       mmolPerDay: speciesMap((s) => bag.speciesMmol[s], 2),
       mmolPerKgPerDay: speciesMap((s) => bag.speciesMmol[s].div(w), 3),
       dextrosePercent: round(bag.percent.dextrose, 2),

@@ -22,6 +22,8 @@ import { useSavedWork } from './saved/SavedWorkProvider.tsx';
 import { StorageNotice } from './saved/StorageNotice.tsx';
 import { useSavedOrder } from './saved/useSavedOrder.ts';
 import { VersionHistory } from './saved/VersionHistory.tsx';
+import { PrintActions } from './print/PrintActions.tsx';
+import { parseOrder } from '../core/order.ts';
 
 function demoDoc(key: string): OrderDoc | null {
   const demo = DEMO_ORDERS.find((d) => d.key === key);
@@ -90,6 +92,11 @@ function Workspace() {
     void work.saveRef('policy', file, 'edited').then((r) => { if (r.ok) setPolicyEdit(null); else work.report(r.problems); });
   };
   const report = ws.figures?.report ?? null;
+  // The committed order's lines, for the mixing sequence on the printed sheet.
+  const orderLines = useMemo(() => {
+    const r = parseOrder(toOrderFile(ws.doc.order), catalog.catalog);
+    return r.ok ? r.value.lines : undefined;
+  }, [ws.doc, catalog.catalog]);
 
   return (
     <div className="app">
@@ -105,6 +112,7 @@ function Workspace() {
           }}
           onOpenProblems={setOpenProblems}
           undoLabel={ws.undoLabel} redoLabel={ws.redoLabel} onUndo={ws.actions.undo} onRedo={ws.actions.redo}
+          printSlot={report && !ws.stale ? <PrintActions report={report} catalog={catalog.catalog} policy={policy.policy} {...(orderLines ? { orderLines } : {})} /> : null}
         />
         {view === 'order' ? <VerdictBar report={report} stale={ws.stale} problemCount={ws.problems.count} /> : null}
       </div>

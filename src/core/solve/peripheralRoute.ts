@@ -13,9 +13,11 @@ export function peripheralRouteSuggestion(current: Checked, policy: Policy, eval
   if (order.route !== 'central' || current.bag.finalVolumeMl.isZero()) return null;
   const limit = ruleFor(policy, 'osmolarity-peripheral', order.patient.ageGroup)?.max ?? null;
   if (!limit) return { kind: 'peripheral-route', status: 'unavailable', message: 'The policy sets no peripheral osmolarity limit for this age group.', notes: [] };
-  const next = evaluate({ ...order, route: 'peripheral' });
-  const osm = next.bag.osmolarity.reported;
-  if (next.findings.some((f) => f.code === 'osmolarity-peripheral')) {
+  // The bag does not depend on the route: over the limit now means over it peripherally, with no re-check.
+  const over = current.bag.osmolarity.reported.gt(limit);
+  const next = over ? null : evaluate({ ...order, route: 'peripheral' });
+  const osm = current.bag.osmolarity.reported;
+  if (next === null || next.findings.some((f) => f.code === 'osmolarity-peripheral')) {
     return {
       kind: 'peripheral-route', status: 'unavailable', notes: [],
       message: `Needs the central line: reported osmolarity ${fmt(osm, 1)} mOsm/L is over the peripheral limit of ${limit.toString()} by ${fmt(osm.minus(limit), 1)}.`,
