@@ -57,19 +57,23 @@ function Workspace() {
   const by = initials.trim().toUpperCase() || null;
   const saved = useSavedOrder(by);
 
-  // Which saved order each opened document belongs to, so undo/redo across an "open" keeps the draft
-  // with the right order; and the autosave: every committed edit is kept in the browser at once.
+  // Which saved order each opened document belongs to, so undo/redo across an "open" takes the draft
+  // back to the right saved order (or to none); and the autosave: every committed edit is kept at once.
   const [owners] = useState(() => new Map<number, string | null>([[ws.doc.docId, restored ? (work.restored?.orderKey ?? null) : null]]));
   const kept = useRef(ws.doc);
   const file = useMemo(() => toOrderFile(ws.doc.order) as JsonObject, [ws.doc]);
   const { edited, follow } = saved;
+  const openKey = saved.saved?.record.key ?? null;
   useEffect(() => {
-    if (ws.doc === kept.current) return;
+    const before = kept.current;
+    if (ws.doc === before) return;
     kept.current = ws.doc;
-    const owner = owners.get(ws.doc.docId);
-    if (owner !== undefined) follow(owner);
+    if (ws.doc.docId !== before.docId) {
+      owners.set(before.docId, openKey);
+      follow(owners.get(ws.doc.docId) ?? null);
+    }
     edited(file);
-  }, [ws.doc, file, edited, follow, owners]);
+  }, [ws.doc, file, edited, follow, owners, openKey]);
 
   const open = (doc: OrderDoc, label: string, key: string, owner: string | null = null) => {
     owners.set(doc.docId, owner);

@@ -48,4 +48,19 @@ describe('the app with saved work', () => {
     await user.click(screen.getByRole('button', { name: /^Redo: Open saved order/ }));
     await waitFor(() => expect(screen.getByTestId('saved-state')).toHaveTextContent('Version 1'));
   });
+
+  it('saves the order on screen, and the next edit is an unsaved change of that saved order', async () => {
+    freshIndexedDb();
+    const user = userEvent.setup();
+    render(<SavedWorkProvider dbName={DB}><App /></SavedWorkProvider>);
+    await user.click(await screen.findByRole('button', { name: 'Save order' }));
+    await waitFor(() => expect(screen.getByTestId('saved-state')).toHaveTextContent('Version 1'));
+    const amount = screen.getByRole('textbox', { name: /^Amount, line 2\b/ });
+    await user.clear(amount);
+    await user.keyboard('140{Enter}');
+    await waitFor(() => expect(screen.getByTestId('saved-state')).toHaveTextContent('Version 1 · unsaved changes'));
+    await user.click(screen.getByRole('button', { name: 'Save as version 2' }));
+    await waitFor(() => expect(screen.getByTestId('saved-state')).toHaveTextContent('Version 2'));
+    expect(await screen.findByRole('region', { name: 'Version history' })).toHaveTextContent('amount: 150 → 140');
+  });
 });

@@ -41,7 +41,7 @@ function Inner() {
   return (
     <>
       <p data-testid="open">{api.saved ? `${api.saved.record.orderId} v${api.latest?.n}` : 'none'}</p>
-      <SavedOrdersView api={api} by="CD" onOpened={() => { opened += 1; }} />
+      <SavedOrdersView api={api} by="CD" onOpened={(_file, key) => { opened += 1; api.follow(key); }} />
     </>
   );
 }

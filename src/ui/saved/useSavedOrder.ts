@@ -30,7 +30,10 @@ export interface SavedOrderApi {
   save(file: JsonObject, by: string | null): Promise<Result<OrderVersion>>;
   /** Save if needed, then sign the latest version. */
   sign(file: JsonObject, initials: string): Promise<Result<OrderVersion>>;
-  /** Open a saved order: returns its latest file for the workspace to load. */
+  /**
+   * A saved order's latest file, for the workspace to load. The draft is not attached yet: the app calls
+   * follow(orderKey) when the opened document is on screen.
+   */
   open(orderKey: string): Promise<JsonObject | null>;
   /**
    * The workspace opened an unsaved order (new, demo, file): detach from any saved one. With `file`, it
@@ -44,7 +47,7 @@ export interface SavedOrderApi {
   follow(orderKey: string | null): void;
   /** A saved order was deleted: if it is the open one, the order on screen becomes unsaved. */
   forget(orderKey: string): void;
-  /** Copy a saved order to a new one and open it; returns the copy's file and storage key. */
+  /** Copy a saved order to a new saved order; returns the copy's file and storage key (open it like a saved order). */
   copy(orderKey: string, newId: string, by: string | null): Promise<Result<{ file: JsonObject; orderKey: string }>>;
   /** A free id for the next day's copy of an order id. */
   suggestId(orderId: string): Promise<string>;
@@ -141,11 +144,11 @@ export function useSavedOrder(initials: string | null): SavedOrderApi {
   }, [store, env, save, report, reloadSaved, touch]);
 
   const open = useCallback(async (orderKey: string): Promise<JsonObject | null> => {
-    const value = await reloadSaved(orderKey);
-    const file = value?.versions.at(-1)?.file ?? null;
-    if (file) edited(file);
-    return file;
-  }, [reloadSaved, edited]);
+    if (!store) return null;
+    const r = await getOrder(store, orderKey);
+    if (!r.ok) { report(r.problems); return null; }
+    return r.value?.versions.at(-1)?.file ?? null;
+  }, [store, report]);
 
   const detach = useCallback((file?: JsonObject) => {
     openKey.current = null;
@@ -170,11 +173,9 @@ export function useSavedOrder(initials: string | null): SavedOrderApi {
     if (!store || !env) return notReady();
     const r = await copyOrder(store, env, orderKey, newId, by);
     if (!r.ok) { if (r.problems.some((p) => p.path === '(storage)')) report(r.problems); return r; }
-    await reloadSaved(r.value.record.key);
-    edited(r.value.version.file);
     touch();
     return { ok: true, value: { file: r.value.version.file, orderKey: r.value.record.key } };
-  }, [store, env, report, reloadSaved, edited, touch]);
+  }, [store, env, report, touch]);
 
   const suggestId = useCallback(async (orderId: string) => {
     const all = store ? await allOrders(store) : null;
