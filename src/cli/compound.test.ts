@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { runCli, type CliIo } from './run.ts';
+import { runCli } from './run.ts';
+import { memoryIo } from '../../test/support/cliIo.ts';
 import { compoundReportSchema } from '../core/compound/compoundReport.ts';
 import { reportSchema } from '../core/report.ts';
 import adultIons from '../../data/demo/adult-ions.json';
@@ -7,20 +8,6 @@ import adultCentral from '../../data/demo/adult-central.json';
 
 const demo = JSON.stringify(adultIons);
 
-function memoryIo(files: Record<string, string>) {
-  const out: string[] = [];
-  const err: string[] = [];
-  const io: CliIo = {
-    readFile: async (path) => {
-      const text = files[path];
-      if (text === undefined) throw Object.assign(new Error('no such file'), { code: 'ENOENT' });
-      return text;
-    },
-    stdout: (t) => out.push(t),
-    stderr: (t) => err.push(t),
-  };
-  return { io, out, err };
-}
 
 const infeasible = JSON.stringify({
   id: 'T-CLI-INF', patient: { id: 'P', weightKg: 70, ageGroup: 'adult' }, route: 'central', volumeMl: 2000,

@@ -1,25 +1,12 @@
 import { describe, expect, test } from 'vitest';
 import { readFileSync } from 'node:fs';
-import { runCli, type CliIo } from './run.ts';
+import { runCli } from './run.ts';
+import { memoryIo } from '../../test/support/cliIo.ts';
 import { reportSchema } from '../core/report.ts';
 import { z } from 'zod';
 
 const demo = (name: string) => readFileSync(new URL(`../../data/demo/${name}.json`, import.meta.url), 'utf8');
 
-function memoryIo(files: Record<string, string>) {
-  const out: string[] = [];
-  const err: string[] = [];
-  const io: CliIo = {
-    readFile: async (path) => {
-      const text = files[path];
-      if (text === undefined) throw Object.assign(new Error('no such file'), { code: 'ENOENT' });
-      return text;
-    },
-    stdout: (t) => out.push(t),
-    stderr: (t) => err.push(t),
-  };
-  return { io, out, err };
-}
 
 const heldOrder = JSON.stringify({
   id: 'HELD-1', patient: { id: 'P', weightKg: 68, ageGroup: 'adult' }, route: 'peripheral', volumeMl: 2000,
