@@ -76,3 +76,32 @@ export function one(findings: readonly Finding[], code: Finding['code'], by: { s
 }
 
 export const AGES: readonly AgeGroup[] = ['adult', 'child', 'term-neonate', 'preterm-neonate'];
+
+/**
+ * The adult peripheral 3-in-1 demo with dextrose raised to 250 g: the solver tests' held bag. With
+ * the catalog's label values (dextrose 70% 3532 mOsm/L, amino acids 10% 840, lipid emulsion 20% 260,
+ * sodium chloride 23.4% 8008, potassium chloride 4000, potassium phosphates 7.4/mL, magnesium sulfate
+ * 4060, calcium gluconate 680, multivitamin 4.11/mL, trace elements 0.36/mL) the label sum is
+ * 2298.6 mOsm: 1149.3 mOsm/L in 2000 mL, over ASPEN 2014's 900.
+ */
+export const HELD_ADULT_PERIPHERAL: OrderSpec = {
+  age: 'adult', route: 'peripheral', weightKg: 68, volumeMl: 2000, hours: 24,
+  lines: [
+    { product: 'amino-acids-10', amount: 80, unit: 'g' },
+    { product: 'dextrose-70', amount: 250, unit: 'g' },
+    { product: 'lipid-20', amount: 250, unit: 'mL' },
+    { product: 'sodium-chloride-4', amount: 60, unit: 'mEq' },
+    { product: 'potassium-chloride-2', amount: 40, unit: 'mEq' },
+    { product: 'potassium-phosphates-3', amount: 15, unit: 'mmol', species: 'phosphate' },
+    { product: 'magnesium-sulfate-50', amount: 8, unit: 'mEq' },
+    { product: 'calcium-gluconate-10', amount: '9.3', unit: 'mEq' },
+    { product: 'multivitamin-adult', amount: 10, unit: 'mL' },
+    { product: 'trace-elements-adult', amount: 1, unit: 'mL' },
+    { product: 'sterile-water', fill: true },
+  ],
+};
+
+/** True when an order fails the peripheral osmolarity screen of the shipped policy. */
+export function osmolarityFails(order: Order): boolean {
+  return evaluateOrder(order, DEFAULT_CATALOG, DEFAULT_POLICY, { suggestions: false }).findings.some((f) => f.code === 'osmolarity-peripheral');
+}

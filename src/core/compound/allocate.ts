@@ -291,57 +291,49 @@ function planAnions(t: IonTargets, S: D, Cl0: D, Ac0: D, sources: { Cl: string; 
         },
       };
     }
-    case 'acetate-amount': {
-      const fromSalts = a.mEq.minus(Ac0);
-      if (under(fromSalts, ZERO)) {
-        return {
-          x: S, amended: { kind: 'acetate-amount', mEq: Ac0 },
-          problem: {
-            code: 'acetate-below-other-lines', severity: 'block', ion: 'acetate', path: 'ions.anions.acetate',
-            message: `Acetate ordered ${at('acetate', a.mEq)} is below the ${at('acetate', Ac0)} the other lines already deliver (${sources.acetate}).`,
-            proposal: { text: `Acetate ${proposedText(t, 'acetate', Ac0, 'up')}: every sodium and potassium salt as chloride. ${CONFIRM}`, change: { anions: { acetate: inOrderTerms(t, Ac0, 'up') } } },
-          },
-        };
-      }
-      if (over(fromSalts, S)) {
-        const most = Ac0.plus(S);
-        return {
-          x: ZERO, amended: { kind: 'acetate-amount', mEq: most },
-          problem: {
-            code: 'acetate-above-cations', severity: 'block', ion: 'acetate', path: 'ions.anions.acetate',
-            message: `Acetate ordered ${at('acetate', a.mEq)} is more than the cations allow: the other lines bring ${at('acetate', Ac0)} and the sodium and potassium left for chloride or acetate salts carry at most ${fmt(S, 2)} mEq, so at most ${at('acetate', most)}.`,
-            proposal: { text: `Acetate ${proposedText(t, 'acetate', most, 'down')}: every sodium and potassium salt as acetate; or more sodium or potassium. ${CONFIRM}`, change: { anions: { acetate: inOrderTerms(t, most, 'down') } } },
-          },
-        };
-      }
-      return { x: clamp(S.minus(fromSalts), S), problem: null, amended: a };
-    }
-    case 'chloride-amount': {
-      const fromSalts = a.mEq.minus(Cl0);
-      if (under(fromSalts, ZERO)) {
-        return {
-          x: ZERO, amended: { kind: 'chloride-amount', mEq: Cl0 },
-          problem: {
-            code: 'chloride-below-other-lines', severity: 'block', ion: 'Cl', path: 'ions.anions.chloride',
-            message: `Chloride ordered ${at('Cl', a.mEq)} is below the ${at('Cl', Cl0)} the other lines already deliver (${sources.Cl}).`,
-            proposal: { text: `Chloride ${proposedText(t, 'Cl', Cl0, 'up')}: every sodium and potassium salt as acetate. ${CONFIRM}`, change: { anions: { chloride: inOrderTerms(t, Cl0, 'up') } } },
-          },
-        };
-      }
-      if (over(fromSalts, S)) {
-        const most = Cl0.plus(S);
-        return {
-          x: S, amended: { kind: 'chloride-amount', mEq: most },
-          problem: {
-            code: 'chloride-above-cations', severity: 'block', ion: 'Cl', path: 'ions.anions.chloride',
-            message: `Chloride ordered ${at('Cl', a.mEq)} is more than the cations allow: the other lines bring ${at('Cl', Cl0)} and the sodium and potassium left for chloride or acetate salts carry at most ${fmt(S, 2)} mEq, so at most ${at('Cl', most)}.`,
-            proposal: { text: `Chloride ${proposedText(t, 'Cl', most, 'down')}: every sodium and potassium salt as chloride; or more sodium or potassium. ${CONFIRM}`, change: { anions: { chloride: inOrderTerms(t, most, 'down') } } },
-          },
-        };
-      }
-      return { x: clamp(fromSalts, S), problem: null, amended: a };
-    }
+    case 'acetate-amount':
+      return planAnionAmount(t, 'acetate', a.mEq, S, Ac0, sources.acetate);
+    case 'chloride-amount':
+      return planAnionAmount(t, 'Cl', a.mEq, S, Cl0, sources.Cl);
   }
+}
+
+/**
+ * An anion ordered as an amount (mEq over the whole bag): the sodium and potassium salts carry
+ * `ordered − own0` of it, between 0 and S. Returns the chloride share x of those salts.
+ */
+function planAnionAmount(t: IonTargets, ion: 'Cl' | 'acetate', ordered: D, S: D, own0: D, otherSources: string): AnionPlan {
+  const name = ion === 'Cl' ? 'Chloride' : 'Acetate';
+  const key = ion === 'Cl' ? 'chloride' : 'acetate';
+  const other = ion === 'Cl' ? 'acetate' : 'chloride';
+  const kind = ion === 'Cl' ? 'chloride-amount' as const : 'acetate-amount' as const;
+  const at = (v: D): string => amountText(t, ion, v);
+  const amountChange = (v: ReturnType<typeof inOrderTerms>): Partial<IonsJson> => ({ anions: ion === 'Cl' ? { chloride: v } : { acetate: v } });
+  // The chloride share of the salts when they carry y mEq of this anion.
+  const chlorideShare = (y: D): D => (ion === 'Cl' ? y : S.minus(y));
+  const fromSalts = ordered.minus(own0);
+  if (under(fromSalts, ZERO)) {
+    return {
+      x: chlorideShare(ZERO), amended: { kind, mEq: own0 },
+      problem: {
+        code: `${key}-below-other-lines`, severity: 'block', ion, path: `ions.anions.${key}`,
+        message: `${name} ordered ${at(ordered)} is below the ${at(own0)} the other lines already deliver (${otherSources}).`,
+        proposal: { text: `${name} ${proposedText(t, ion, own0, 'up')}: every sodium and potassium salt as ${other}. ${CONFIRM}`, change: amountChange(inOrderTerms(t, own0, 'up')) },
+      },
+    };
+  }
+  if (over(fromSalts, S)) {
+    const most = own0.plus(S);
+    return {
+      x: chlorideShare(S), amended: { kind, mEq: most },
+      problem: {
+        code: `${key}-above-cations`, severity: 'block', ion, path: `ions.anions.${key}`,
+        message: `${name} ordered ${at(ordered)} is more than the cations allow: the other lines bring ${at(own0)} and the sodium and potassium left for chloride or acetate salts carry at most ${fmt(S, 2)} mEq, so at most ${at(most)}.`,
+        proposal: { text: `${name} ${proposedText(t, ion, most, 'down')}: every sodium and potassium salt as ${key}; or more sodium or potassium. ${CONFIRM}`, change: amountChange(inOrderTerms(t, most, 'down')) },
+      },
+    };
+  }
+  return { x: clamp(chlorideShare(fromSalts), S), problem: null, amended: { kind, mEq: ordered } };
 }
 
 /** The preference actually met when stock shortages move the chloride share to x. */

@@ -1,12 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { D } from '../decimal.ts';
-import { DEFAULT_CATALOG, DEFAULT_POLICY } from '../../defaults.ts';
-import { evaluateOrder } from '../evaluate.ts';
 import type { Order } from '../order.ts';
 import type { Proposal, Suggestion } from './suggestion.ts';
-import { evaluate, type OrderSpec } from '../../../test/helpers/orders.ts';
-
-const osmolarityFails = (order: Order) => evaluateOrder(order, DEFAULT_CATALOG, DEFAULT_POLICY, { suggestions: false }).findings.some((f) => f.code === 'osmolarity-peripheral');
+import { evaluate, type OrderSpec, HELD_ADULT_PERIPHERAL, osmolarityFails } from '../../../test/helpers/orders.ts';
 
 function dextroseProposal(suggestions: Suggestion[]): Proposal {
   const s = suggestions.find((x) => x.kind === 'dextrose');
@@ -21,22 +17,7 @@ function withAmount(order: Order, index: number, amount: D): Order {
 // The adult peripheral 3-in-1 with 250 g dextrose at 1149.3 mOsm/L (see finalVolume.test.ts for its
 // label arithmetic). At 2000 mL the limit allows 1800 mOsm: 498.6 mOsm too many, and each gram of
 // dextrose 70% brings 3532/700 = 5.046 mOsm (label), so 98.8 g less: 151.2 g, rounded down to 5 g → 150 g.
-const spec: OrderSpec = {
-  age: 'adult', route: 'peripheral', weightKg: 68, volumeMl: 2000,
-  lines: [
-    { product: 'amino-acids-10', amount: 80, unit: 'g' },
-    { product: 'dextrose-70', amount: 250, unit: 'g' },
-    { product: 'lipid-20', amount: 250, unit: 'mL' },
-    { product: 'sodium-chloride-4', amount: 60, unit: 'mEq' },
-    { product: 'potassium-chloride-2', amount: 40, unit: 'mEq' },
-    { product: 'potassium-phosphates-3', amount: 15, unit: 'mmol', species: 'phosphate' },
-    { product: 'magnesium-sulfate-50', amount: 8, unit: 'mEq' },
-    { product: 'calcium-gluconate-10', amount: '9.3', unit: 'mEq' },
-    { product: 'multivitamin-adult', amount: 10, unit: 'mL' },
-    { product: 'trace-elements-adult', amount: 1, unit: 'mL' },
-    { product: 'sterile-water', fill: true },
-  ],
-};
+const spec: OrderSpec = HELD_ADULT_PERIPHERAL;
 
 describe('dextrose suggestion', () => {
   const e = evaluate(spec);

@@ -1,12 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { D } from '../decimal.ts';
-import { DEFAULT_CATALOG, DEFAULT_POLICY } from '../../defaults.ts';
-import { evaluateOrder } from '../evaluate.ts';
-import type { Order } from '../order.ts';
 import type { Proposal, Suggestion } from './suggestion.ts';
-import { evaluate, orderOf, type OrderSpec } from '../../../test/helpers/orders.ts';
-
-const osmolarityFails = (order: Order) => evaluateOrder(order, DEFAULT_CATALOG, DEFAULT_POLICY, { suggestions: false }).findings.some((f) => f.code === 'osmolarity-peripheral');
+import { evaluate, orderOf, type OrderSpec, HELD_ADULT_PERIPHERAL, osmolarityFails } from '../../../test/helpers/orders.ts';
 
 function volumeProposal(suggestions: Suggestion[]): Proposal {
   const s = suggestions.find((x) => x.kind === 'final-volume');
@@ -19,22 +14,7 @@ function volumeProposal(suggestions: Suggestion[]): Proposal {
 // chloride 4000, potassium phosphates 7.4/mL, magnesium sulfate 4060, calcium gluconate 680,
 // multivitamin 4.11/mL, trace elements 0.36/mL) the label sum is 2298.6 mOsm: 1149.3 mOsm/L in
 // 2000 mL, over ASPEN 2014's 900. 2298.6 ÷ 0.9 = 2554 mL, rounded up to the 10 mL step: 2560.
-const spec: OrderSpec = {
-  age: 'adult', route: 'peripheral', weightKg: 68, volumeMl: 2000, hours: 24,
-  lines: [
-    { product: 'amino-acids-10', amount: 80, unit: 'g' },
-    { product: 'dextrose-70', amount: 250, unit: 'g' },
-    { product: 'lipid-20', amount: 250, unit: 'mL' },
-    { product: 'sodium-chloride-4', amount: 60, unit: 'mEq' },
-    { product: 'potassium-chloride-2', amount: 40, unit: 'mEq' },
-    { product: 'potassium-phosphates-3', amount: 15, unit: 'mmol', species: 'phosphate' },
-    { product: 'magnesium-sulfate-50', amount: 8, unit: 'mEq' },
-    { product: 'calcium-gluconate-10', amount: '9.3', unit: 'mEq' },
-    { product: 'multivitamin-adult', amount: 10, unit: 'mL' },
-    { product: 'trace-elements-adult', amount: 1, unit: 'mL' },
-    { product: 'sterile-water', fill: true },
-  ],
-};
+const spec: OrderSpec = HELD_ADULT_PERIPHERAL;
 
 describe('final-volume suggestion', () => {
   const e = evaluate(spec);
