@@ -1,11 +1,631 @@
 import Decimal from 'decimal.js';
 
 /**
- * The engine's one decimal configuration: 28 significant digits (a dose of 10⁵ units is still exact to
- * 10⁻²² of a unit), half-even at the display edge.
+ * The engine's decimal numbers: every result is the exact result rounded to 15 significant decimal
+ * digits, half-even, the same rule decimal.js follows with `precision: 15` (the tests hold the two side by
+ * side on random operands). A dose of 10⁵ units is exact to 10⁻¹⁰ of a unit; the report shows at most 4
+ * decimals, so the 15th digit never reaches a printed figure except through a tie it would also meet at
+ * any other precision.
+ *
+ * Why not decimal.js for every operation: a decimal.js operation allocates digit arrays and costs 0.1–1.5 µs;
+ * a batch of a day's orders makes millions of them. Here a value is a safe-integer coefficient and a
+ * power of ten, `c × 10^e`, and every operation works on binary floats that are exact integers: sums that
+ * stay below 2⁵³ are exact; wider sums and products are carried exactly as an unevaluated sum of two floats
+ * (Dekker's error-free product, Knuth's error-free sum) and rounded to 15 digits by an exact remainder; a
+ * quotient is estimated in floating point and corrected by the same exact remainder. decimal.js stays
+ * behind the fast paths for what they do not cover: ±Infinity and NaN, a coefficient of more than 16 digits
+ * read from input, and operands more than 10²² apart.
  */
-export const D = Decimal.clone({ precision: 28, rounding: Decimal.ROUND_HALF_EVEN });
-export type D = InstanceType<typeof D>;
+export const PRECISION = 15;
+
+/** decimal.js with the engine's settings: the reference the fast paths agree with, and their fallback. */
+export const Reference = Decimal.clone({ precision: PRECISION, rounding: Decimal.ROUND_HALF_EVEN, toExpNeg: -7, toExpPos: 21 });
+type Reference = InstanceType<typeof Reference>;
+
+/** A number, a decimal string or a decimal: what every operation accepts. */
+export type Numeric = D | number | string;
+
+const MAX = Number.MAX_SAFE_INTEGER;
+/** 10^PRECISION: a rounded coefficient is below it. */
+const LIMIT = 1e15;
+/** Powers of ten as doubles; exact up to 10²². */
+const POW10: readonly number[] = Array.from({ length: 40 }, (_, i) => Number(`1e${i}`));
+const HALF_EVEN = 6;
+/** Veltkamp's splitter for doubles: 2²⁷ + 1. */
+const SPLITTER = 134217729;
+
+// ---- exact integer arithmetic on doubles ---------------------------------------------------------------
+
+/** The error of the rounded product a × b (a, b integers below 2⁵³): a × b = fl(a × b) + twoProductError. */
+function twoProductError(a: number, b: number, p: number): number {
+  let t = SPLITTER * a;
+  const ah = t - (t - a);
+  const al = a - ah;
+  t = SPLITTER * b;
+  const bh = t - (t - b);
+  const bl = b - bh;
+  return al * bl - (((p - ah * bh) - al * bh) - ah * bl);
+}
+
+/** Digits of a positive safe integer (exact). */
+function digits(n: number): number {
+  if (n < 1e8) {
+    if (n < 1e4) return n < 1e2 ? (n < 10 ? 1 : 2) : n < 1e3 ? 3 : 4;
+    return n < 1e6 ? (n < 1e5 ? 5 : 6) : n < 1e7 ? 7 : 8;
+  }
+  if (n < 1e12) return n < 1e10 ? (n < 1e9 ? 9 : 10) : n < 1e11 ? 11 : 12;
+  return n < 1e14 ? (n < 1e13 ? 13 : 14) : n < 1e15 ? 15 : n < 1e16 ? 16 : 16 + digits(Math.floor(n / 1e16));
+}
+
+/** Whether a rounding mode adds one to the truncated magnitude. `half` compares the dropped part with one half. */
+function bumps(rm: number, negative: boolean, odd: boolean, half: number): boolean {
+  switch (rm) {
+    case 0: return true; // up, away from zero
+    case 1: return false; // down, toward zero
+    case 2: return !negative; // ceil
+    case 3: return negative; // floor
+    case 4: return half >= 0; // half-up
+    case 5: return half > 0; // half-down
+    case 6: return half > 0 || (half === 0 && odd); // half-even
+    case 7: return half > 0 || (half === 0 && !negative); // half-ceil
+    default: return half > 0 || (half === 0 && negative); // half-floor
+  }
+}
+
+/** Whether an integer below 2⁵³ is odd. (`%` on doubles is a slow library call; halving is exact.) */
+function odd(q: number): boolean {
+  const half = q / 2;
+  return half !== Math.floor(half);
+}
+
+/**
+ * Whether an integer below 2⁵³ is a multiple of ten: x ÷ 10 is a whole number only then (below 2⁵³ the
+ * quotient's spacing is at most 1/8, so k + 0.1 … k + 0.9 never rounds to a whole number).
+ */
+function tens(x: number): boolean {
+  const t = x / 10;
+  return t === Math.floor(t);
+}
+
+let remainder = 0;
+
+/**
+ * floor(N ÷ d) for an exact non-negative integer N = hi + lo (an unevaluated sum of doubles) and a positive
+ * integer d, when the quotient is below 2⁵³. Leaves the exact remainder in `remainder`.
+ */
+function floorQuotient(hi: number, lo: number, d: number): number {
+  let q = Math.floor(hi / d);
+  // r = N − q × d, exactly: the products' error terms are integers below 2⁵³ and hi − h cancels exactly.
+  const h = q * d;
+  let r = (hi - h) + (lo - twoProductError(q, d, h));
+  while (r < 0) { q -= 1; r += d; }
+  while (r >= d) { q += 1; r -= d; }
+  remainder = r;
+  return q;
+}
+
+/** Round floor(N ÷ d) by the remainder left in `remainder` (`negative` is the sign of the whole value). */
+function roundQuotient(q: number, d: number, rm: number, negative: boolean): number {
+  if (remainder === 0) return q;
+  const twice = remainder * 2;
+  return bumps(rm, negative, odd(q), twice < d ? -1 : twice === d ? 0 : 1) ? q + 1 : q;
+}
+
+// ---- construction ----------------------------------------------------------------------------------------
+
+const RAW: unique symbol = Symbol('raw');
+
+/** A finite value with a safe-integer coefficient, trailing zeros removed (zero has exponent 0). */
+function canonical(c: number, e: number): D {
+  if (c === 0) return new D(RAW, c, 0, null);
+  while (tens(c)) { c /= 10; e += 1; }
+  return new D(RAW, c, e, null);
+}
+
+/** The exact integer N = hi + lo, times 10^e, rounded to PRECISION digits (half-even). */
+function roundPair(hi: number, lo: number, e: number): D {
+  const negative = hi < 0 || (hi === 0 && lo < 0);
+  if (negative) { hi = -hi; lo = -lo; }
+  const approx = hi + lo;
+  if (approx < LIMIT) return canonical(negative ? -approx : approx, e); // below 2⁵³, so the sum is exact
+  let k = digits(approx) - PRECISION; // above 10¹⁶ possibly one off: corrected below
+  // The exact remainder needs 10^k below 2⁵⁰; wider values (only from 16-digit inputs) take the exact slow path.
+  if (k > PRECISION) return roundExactly(BigInt(negative ? -hi : hi) + BigInt(negative ? -lo : lo), e);
+  let q = floorQuotient(hi, lo, POW10[k]!);
+  if (q >= LIMIT) { k += 1; q = floorQuotient(hi, lo, POW10[k]!); }
+  else if (q < LIMIT / 10) { k -= 1; q = floorQuotient(hi, lo, POW10[k]!); }
+  q = roundQuotient(q, POW10[k]!, HALF_EVEN, negative);
+  return canonical(negative ? -q : q, e + k);
+}
+
+/** An exact integer times 10^e, rounded to PRECISION digits by decimal.js (the rare wide case). */
+function roundExactly(n: bigint, e: number): D {
+  return fromReference(new Reference(`${n}e${e}`).toSignificantDigits(PRECISION, Decimal.ROUND_HALF_EVEN));
+}
+
+/** A safe integer times 10^e, rounded to PRECISION digits. */
+function make(c: number, e: number): D {
+  return c < LIMIT && c > -LIMIT ? canonical(c, e) : roundPair(c, 0, e);
+}
+
+function fromReference(r: Reference): D {
+  if (!r.isFinite()) return new D(RAW, NaN, 0, r);
+  return new D(r.valueOf());
+}
+
+function toReference(d: D): Reference {
+  return d.x ?? new Reference(d.valueOf());
+}
+
+function parsed(v: Numeric): D {
+  return v instanceof D ? v : new D(v);
+}
+
+let parsedC = 0;
+let parsedE = 0;
+
+/** Read a plain decimal string (decimal.js's grammar) into parsedC/parsedE; false when it needs decimal.js. */
+function parseDecimal(s: string): boolean {
+  const n = s.length;
+  let i = 0;
+  let negative = false;
+  const first = s.charCodeAt(0);
+  if (first === 45) { negative = true; i = 1; } else if (first === 43) i = 1;
+  const intStart = i;
+  while (i < n && s.charCodeAt(i) >= 48 && s.charCodeAt(i) <= 57) i++;
+  const intEnd = i;
+  let fracStart = i;
+  let fracEnd = i;
+  if (i < n && s.charCodeAt(i) === 46) {
+    fracStart = ++i;
+    while (i < n && s.charCodeAt(i) >= 48 && s.charCodeAt(i) <= 57) i++;
+    fracEnd = i;
+  }
+  if (intEnd === intStart && fracEnd === fracStart) return false;
+  let exponent = 0;
+  if (i < n && (s.charCodeAt(i) | 32) === 101) {
+    const expStart = ++i;
+    if (i < n && (s.charCodeAt(i) === 45 || s.charCodeAt(i) === 43)) i++;
+    const digitsStart = i;
+    while (i < n && s.charCodeAt(i) >= 48 && s.charCodeAt(i) <= 57) i++;
+    if (i === digitsStart || i - digitsStart > 9) return false;
+    exponent = Number(s.slice(expStart, i));
+  }
+  if (i !== n) return false;
+  let all = s.slice(intStart, intEnd) + s.slice(fracStart, fracEnd);
+  let lead = 0;
+  while (lead < all.length - 1 && all.charCodeAt(lead) === 48) lead++;
+  if (lead > 0) all = all.slice(lead);
+  let trail = all.length;
+  while (trail > 1 && all.charCodeAt(trail - 1) === 48) trail--;
+  if (trail > 16) return false;
+  const c = Number(trail === all.length ? all : all.slice(0, trail));
+  if (c > MAX) return false;
+  parsedC = negative ? -c : c;
+  parsedE = c === 0 ? 0 : exponent - (fracEnd - fracStart) + (all.length - trail);
+  return true;
+}
+
+/**
+ * An exact decimal number: `c × 10^e` with a safe-integer coefficient, or, for ±Infinity, NaN and
+ * coefficients of more than 16 digits read from input, a decimal.js value in `x`. Immutable. The methods
+ * are the decimal.js ones the engine uses, with the same names and results (at 15 digits).
+ */
+export class D {
+  static readonly ROUND_UP = 0;
+  static readonly ROUND_DOWN = 1;
+  static readonly ROUND_CEIL = 2;
+  static readonly ROUND_FLOOR = 3;
+  static readonly ROUND_HALF_UP = 4;
+  static readonly ROUND_HALF_DOWN = 5;
+  static readonly ROUND_HALF_EVEN = 6;
+
+  /** The coefficient: a safe integer without trailing zeros (NaN when the value is held in `x`). */
+  readonly c: number;
+  /** The power of ten the coefficient is multiplied by. */
+  readonly e: number;
+  /** The decimal.js value, for the values the coefficient cannot hold; null otherwise. */
+  readonly x: Reference | null;
+
+  constructor(value: Numeric);
+  constructor(raw: typeof RAW, c: number, e: number, x: Reference | null);
+  constructor(value: Numeric | typeof RAW, c = 0, e = 0, x: Reference | null = null) {
+    if (value === RAW) {
+      this.c = c;
+      this.e = e;
+      this.x = x;
+      return;
+    }
+    if (value instanceof D) {
+      this.c = value.c;
+      this.e = value.e;
+      this.x = value.x;
+      return;
+    }
+    if (typeof value === 'number' && Number.isInteger(value) && value <= MAX && value >= -MAX) {
+      let coefficient = value;
+      let exponent = 0;
+      if (coefficient !== 0) while (tens(coefficient)) { coefficient /= 10; exponent += 1; }
+      this.c = coefficient;
+      this.e = exponent;
+      this.x = null;
+      return;
+    }
+    const text = typeof value === 'number' ? String(value) : value;
+    if (typeof text === 'string' && parseDecimal(text)) {
+      let coefficient = parsedC;
+      let exponent = parsedE;
+      if (coefficient !== 0) while (tens(coefficient)) { coefficient /= 10; exponent += 1; }
+      this.c = coefficient;
+      this.e = exponent;
+      this.x = null;
+      return;
+    }
+    // decimal.js reads (or rejects, with its own error) everything else: Infinity, NaN, long coefficients.
+    const reference = new Reference(value as string | number);
+    if (reference.isFinite() && parseDecimal(reference.toString())) {
+      this.c = parsedC;
+      this.e = parsedE;
+      this.x = null;
+      return;
+    }
+    this.c = NaN;
+    this.e = 0;
+    this.x = reference;
+  }
+
+  static max(...values: Numeric[]): D {
+    let best = parsed(values[0] ?? NaN);
+    for (let i = 1; i < values.length; i++) {
+      const v = parsed(values[i]!);
+      if (v.x !== null && v.x.isNaN()) return v;
+      if (best.cmp(v) < 0) best = v;
+    }
+    return best;
+  }
+
+  static min(...values: Numeric[]): D {
+    let best = parsed(values[0] ?? NaN);
+    for (let i = 1; i < values.length; i++) {
+      const v = parsed(values[i]!);
+      if (v.x !== null && v.x.isNaN()) return v;
+      if (best.cmp(v) > 0) best = v;
+    }
+    return best;
+  }
+
+  // ---- arithmetic ----------------------------------------------------------------------------------------
+
+  plus(y: Numeric): D {
+    const v = parsed(y);
+    if (this.x !== null || v.x !== null) return fromReference(toReference(this).plus(toReference(v)));
+    return add(this.c, this.e, v.c, v.e);
+  }
+
+  add(y: Numeric): D {
+    return this.plus(y);
+  }
+
+  minus(y: Numeric): D {
+    const v = parsed(y);
+    if (this.x !== null || v.x !== null) return fromReference(toReference(this).minus(toReference(v)));
+    return add(this.c, this.e, -v.c, v.e);
+  }
+
+  sub(y: Numeric): D {
+    return this.minus(y);
+  }
+
+  times(y: Numeric): D {
+    const v = parsed(y);
+    if (this.x !== null || v.x !== null) return fromReference(toReference(this).times(toReference(v)));
+    const a = this.c;
+    const b = v.c;
+    const p = a * b;
+    if (p <= MAX && p >= -MAX) return make(p, this.e + v.e);
+    return roundPair(p, twoProductError(a, b, p), this.e + v.e);
+  }
+
+  mul(y: Numeric): D {
+    return this.times(y);
+  }
+
+  div(y: Numeric): D {
+    const v = parsed(y);
+    if (this.x !== null || v.x !== null || v.c === 0) return fromReference(toReference(this).div(toReference(v)));
+    const a = this.c;
+    const b = v.c;
+    if (a === 0) return canonical(a / b, 0);
+    const negative = (a < 0) !== (b < 0);
+    const A = Math.abs(a);
+    const B = Math.abs(b);
+    if (A >= LIMIT || B >= LIMIT) {
+      const q = Math.floor(A / B);
+      if (q * B === A && twoProductError(q, B, q * B) === 0) return make(negative ? -q : q, this.e - v.e);
+      return fromReference(toReference(this).div(toReference(v)));
+    }
+    // Scale A by 10^s so that floor(A·10^s ÷ B) has exactly PRECISION digits.
+    const nA = digits(A);
+    const nB = digits(B);
+    let s = PRECISION - 1 + nB - nA;
+    if ((nA <= nB ? A * POW10[nB - nA]! : A) < (nA <= nB ? B : B * POW10[nA - nB]!)) s += 1;
+    let hi: number;
+    let lo: number;
+    if (s <= 22) {
+      hi = A * POW10[s]!;
+      lo = twoProductError(A, POW10[s]!, hi);
+    } else {
+      const scaled = A * POW10[s - 22]!; // exact: s > 22 only for a short A
+      hi = scaled * 1e22;
+      lo = twoProductError(scaled, 1e22, hi);
+    }
+    const q = roundQuotient(floorQuotient(hi, lo, B), B, HALF_EVEN, negative);
+    return canonical(negative ? -q : q, this.e - v.e - s);
+  }
+
+  dividedBy(y: Numeric): D {
+    return this.div(y);
+  }
+
+  /** The square root (by decimal.js, correctly rounded to PRECISION digits). */
+  sqrt(): D {
+    return fromReference(toReference(this).sqrt());
+  }
+
+  neg(): D {
+    return this.x !== null ? fromReference(this.x.neg()) : new D(RAW, -this.c, this.e, null);
+  }
+
+  negated(): D {
+    return this.neg();
+  }
+
+  abs(): D {
+    if (this.x !== null) return fromReference(this.x.abs());
+    return this.c < 0 || Object.is(this.c, -0) ? new D(RAW, -this.c, this.e, null) : this;
+  }
+
+  // ---- comparison ----------------------------------------------------------------------------------------
+
+  /** −1, 0 or 1 as this is below, equal to or above y; NaN when either is NaN. */
+  cmp(y: Numeric): number {
+    const v = parsed(y);
+    if (this.x !== null || v.x !== null) return toReference(this).cmp(toReference(v));
+    const a = this.c;
+    const b = v.c;
+    if (this.e === v.e || a === 0 || b === 0) return a < b ? -1 : a > b ? 1 : 0;
+    if ((a < 0) !== (b < 0)) return a < 0 ? -1 : 1;
+    // Same sign, both non-zero: align to the smaller exponent. A scaled coefficient above 2⁵³ rounds to a
+    // double at least 2⁵³, still above the other (a safe integer), so the comparison stays exact.
+    if (this.e > v.e) {
+      const scaled = a * POW10[Math.min(39, this.e - v.e)]!;
+      return scaled < b ? -1 : scaled > b ? 1 : 0;
+    }
+    const scaled = b * POW10[Math.min(39, v.e - this.e)]!;
+    return a < scaled ? -1 : a > scaled ? 1 : 0;
+  }
+
+  comparedTo(y: Numeric): number {
+    return this.cmp(y);
+  }
+
+  eq(y: Numeric): boolean {
+    return this.cmp(y) === 0;
+  }
+
+  equals(y: Numeric): boolean {
+    return this.eq(y);
+  }
+
+  gt(y: Numeric): boolean {
+    return this.cmp(y) > 0;
+  }
+
+  gte(y: Numeric): boolean {
+    return this.cmp(y) >= 0;
+  }
+
+  lt(y: Numeric): boolean {
+    return this.cmp(y) < 0;
+  }
+
+  lte(y: Numeric): boolean {
+    return this.cmp(y) <= 0;
+  }
+
+  isZero(): boolean {
+    return this.c === 0;
+  }
+
+  isFinite(): boolean {
+    return this.x === null || this.x.isFinite();
+  }
+
+  isNaN(): boolean {
+    return this.x !== null && this.x.isNaN();
+  }
+
+  isInteger(): boolean {
+    return this.x !== null ? this.x.isInteger() : this.e >= 0 || this.c === 0;
+  }
+
+  isNeg(): boolean {
+    return this.x !== null ? this.x.isNeg() : this.c < 0 || Object.is(this.c, -0);
+  }
+
+  isNegative(): boolean {
+    return this.isNeg();
+  }
+
+  isPos(): boolean {
+    return this.x !== null ? this.x.isPos() : !this.isNeg();
+  }
+
+  // ---- rounding ------------------------------------------------------------------------------------------
+
+  /** Rounded to `dp` decimal places (rounding mode `rm`, half-even by default); not limited to PRECISION. */
+  toDecimalPlaces(dp?: number, rm: number = HALF_EVEN): D {
+    if (dp === undefined) return this;
+    if (this.x !== null) return fromReference(this.x.toDecimalPlaces(dp, rm as Decimal.Rounding));
+    if (this.e >= -dp || this.c === 0) return this;
+    const negative = this.c < 0;
+    const magnitude = Math.abs(this.c);
+    const shift = -dp - this.e;
+    let q: number;
+    if (shift > 22) {
+      q = bumps(rm, negative, false, -1) ? 1 : 0; // the magnitude is below 2⁵³, far under one half of 10²²
+    } else {
+      const d = POW10[shift]!;
+      q = shift > 15 ? 0 : floorQuotient(magnitude, 0, d); // the magnitude has at most 16 digits
+      if (shift > 15) remainder = magnitude;
+      q = roundQuotient(q, d, rm, negative);
+    }
+    return q === 0 ? new D(RAW, negative ? -0 : 0, 0, null) : canonical(negative ? -q : q, -dp);
+  }
+
+  toDP(dp?: number, rm?: number): D {
+    return this.toDecimalPlaces(dp, rm);
+  }
+
+  /** Rounded to a whole number, half-even. */
+  round(): D {
+    return this.toDecimalPlaces(0, HALF_EVEN);
+  }
+
+  floor(): D {
+    return this.toDecimalPlaces(0, D.ROUND_FLOOR);
+  }
+
+  ceil(): D {
+    return this.toDecimalPlaces(0, D.ROUND_CEIL);
+  }
+
+  /** The multiple of `step` nearest to this value in rounding mode `rm` (half-even by default). */
+  toNearest(step: Numeric, rm: number = HALF_EVEN): D {
+    const y = parsed(step);
+    if (this.x !== null || y.x !== null) return fromReference(toReference(this).toNearest(toReference(y), rm as Decimal.Rounding));
+    if (y.c === 0) return new D(RAW, this.isNeg() ? -0 : 0, 0, null);
+    const low = Math.min(this.e, y.e);
+    const X = this.c * POW10[Math.min(39, this.e - low)]!;
+    const Y = y.c * POW10[Math.min(39, y.e - low)]!;
+    if (Math.abs(X) > MAX || Math.abs(Y) > MAX) return fromReference(toReference(this).toNearest(toReference(y), rm as Decimal.Rounding));
+    const negative = (X < 0) !== (Y < 0);
+    const absX = Math.abs(X);
+    const absY = Math.abs(Y);
+    const q = roundQuotient(floorQuotient(absX, 0, absY), absY, rm, negative);
+    if (q === 0) return new D(RAW, this.isNeg() ? -0 : 0, 0, null);
+    // decimal.js leaves this product exact (not rounded to PRECISION).
+    const product = (negative ? -q : q) * y.c;
+    if (product > MAX || product < -MAX) return fromReference(toReference(this).toNearest(toReference(y), rm as Decimal.Rounding));
+    return canonical(product, y.e);
+  }
+
+  // ---- conversion ----------------------------------------------------------------------------------------
+
+  /** The nearest binary float (correctly rounded, as decimal.js's toNumber). */
+  toNumber(): number {
+    if (this.x !== null) return this.x.toNumber();
+    const { c, e } = this;
+    if (e === 0) return c;
+    if (e < 0 && e >= -22) return c / POW10[-e]!;
+    if (e > 0 && e <= 22) return c * POW10[e]!;
+    return Number(`${c}e${e}`);
+  }
+
+  /** Plain digits, exponential notation below 10⁻⁷ or from 10²¹ (as decimal.js); "-" only when non-zero. */
+  toString(): string {
+    if (this.x !== null) return this.x.toString();
+    const text = this.unsigned();
+    return this.c < 0 ? `-${text}` : text;
+  }
+
+  /** As toString, but negative zero keeps its sign (as decimal.js's valueOf and toJSON). */
+  valueOf(): string {
+    if (this.x !== null) return this.x.valueOf();
+    const text = this.unsigned();
+    return this.isNeg() ? `-${text}` : text;
+  }
+
+  toJSON(): string {
+    return this.valueOf();
+  }
+
+  /** Fixed-point text with `dp` decimals (rounding mode `rm`, half-even by default). */
+  toFixed(dp?: number, rm: number = HALF_EVEN): string {
+    if (this.x !== null) return dp === undefined ? this.x.toFixed() : this.x.toFixed(dp, rm as Decimal.Rounding);
+    const rounded = dp === undefined ? this : this.toDecimalPlaces(dp, rm);
+    const body = rounded.plain(Math.abs(rounded.c), dp ?? 0);
+    return this.c < 0 ? `-${body}` : body;
+  }
+
+  [Symbol.for('nodejs.util.inspect.custom')](): string {
+    return `D(${this.valueOf()})`;
+  }
+
+  /** |value| as decimal.js's toString writes it. */
+  private unsigned(): string {
+    const digitsText = String(Math.abs(this.c));
+    const adjusted = this.e + digitsText.length - 1;
+    if (adjusted <= -7 || adjusted >= 21) {
+      const mantissa = digitsText.length > 1 ? `${digitsText[0]}.${digitsText.slice(1)}` : digitsText;
+      return `${mantissa}e${adjusted < 0 ? '' : '+'}${adjusted}`;
+    }
+    return this.plain(Math.abs(this.c), 0);
+  }
+
+  /** A non-negative coefficient at this exponent in plain notation, with at least `dp` decimals. */
+  private plain(magnitude: number, dp: number): string {
+    const digitsText = String(magnitude);
+    const e = magnitude === 0 ? 0 : this.e;
+    let whole: string;
+    let fraction: string;
+    if (e >= 0) {
+      whole = digitsText + '0'.repeat(e);
+      fraction = '';
+    } else if (-e >= digitsText.length) {
+      whole = '0';
+      fraction = '0'.repeat(-e - digitsText.length) + digitsText;
+    } else {
+      whole = digitsText.slice(0, digitsText.length + e);
+      fraction = digitsText.slice(digitsText.length + e);
+    }
+    if (fraction.length < dp) fraction += '0'.repeat(dp - fraction.length);
+    return fraction === '' ? whole : `${whole}.${fraction}`;
+  }
+}
+
+/** a·10^ea + b·10^eb for safe-integer coefficients, rounded to PRECISION digits. */
+function add(a: number, ea: number, b: number, eb: number): D {
+  if (a === 0) return b === 0 ? canonical(a + b, 0) : make(b, eb);
+  if (b === 0) return make(a, ea);
+  if (ea < eb) {
+    const t = a; a = b; b = t;
+    const te = ea; ea = eb; eb = te;
+  }
+  // Now ea ≥ eb: a is scaled up by 10^d to b's exponent.
+  const d = ea - eb;
+  if (d === 0) {
+    const s = a + b;
+    if (s <= MAX && s >= -MAX) return make(s, eb);
+    const lo = (a - (s - (s - a))) + (b - (s - a)); // Knuth's two-sum error
+    return roundPair(s, lo, eb);
+  }
+  if (d > 22) return roundExactly(BigInt(a) * 10n ** BigInt(d) + BigInt(b), eb);
+  const scaled = a * POW10[d]!;
+  if (scaled <= MAX && scaled >= -MAX) {
+    const s = scaled + b;
+    if (s <= MAX && s >= -MAX) return make(s, eb);
+  }
+  // Beyond 2¹⁰⁴ (or with a 16-digit b) the error terms below could reach 2⁵³: the exact slow path.
+  if (scaled >= 2e31 || scaled <= -2e31 || b >= 4.5e15 || b <= -4.5e15) return roundExactly(BigInt(a) * 10n ** BigInt(d) + BigInt(b), eb);
+  // Exactly: a·10^d = scaled + err (|err| ≤ 2⁵⁰), err + b is an integer below 2⁵³; then an error-free sum.
+  const err = twoProductError(a, POW10[d]!, scaled);
+  const tail = err + b;
+  const s = scaled + tail;
+  const bv = s - scaled;
+  const lo = (scaled - (s - bv)) + (tail - bv);
+  return roundPair(s, lo, eb);
+}
 
 export const ZERO = new D(0);
 export const ONE = new D(1);
@@ -37,7 +657,7 @@ export function sum(values: Iterable<D>): D {
 export function round(value: D, places: number): number {
   if (value.isZero()) return 0;
   if (!value.isFinite()) throw new Error('non-finite value reached the display edge');
-  const n = value.toDecimalPlaces(places, Decimal.ROUND_HALF_EVEN).toNumber();
+  const n = value.toDecimalPlaces(places, HALF_EVEN).toNumber();
   return Object.is(n, -0) ? 0 : n;
 }
 

@@ -1,11 +1,15 @@
-import { D, round } from './decimal.ts';
+import { D } from './decimal.ts';
 
-/** A decimal as display text with fixed decimals (half-even); thousands are not grouped. */
+const ZERO_TEXT = new D(0);
+
+/** A decimal as display text with fixed decimals (half-even); thousands are not grouped; never "-0.00". */
 export function fmt(value: D, places: number): string {
-  return new D(round(value, places)).toFixed(places);
+  const rounded = value.toDecimalPlaces(places);
+  return (rounded.isZero() ? ZERO_TEXT : rounded).toFixed(places);
 }
 
 /** Like fmt, but drops trailing zeros (for amounts as the user typed them). */
 export function fmtTrim(value: D, maxPlaces: number): string {
-  return new D(round(value, maxPlaces)).toString();
+  const rounded = value.toDecimalPlaces(maxPlaces);
+  return rounded.isZero() ? '0' : rounded.toString();
 }

@@ -2,8 +2,9 @@
 // vite build --mode profile && N=2000 node --cpu-prof dist/profile/profile.mjs
 // FINGERPRINT=1 also prints a SHA-256 of every report (JSON, in order) and of each demo order's report: a speed
 // change to the engine must leave it unchanged.
+// DUMP=FILE writes every report as one JSON line, to compare two engines line by line.
 import { createHash } from 'node:crypto';
-import { readFileSync, readdirSync } from 'node:fs';
+import { readFileSync, readdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { batch } from './generate.ts';
 import { DEFAULT_CATALOG, DEFAULT_POLICY } from '../../src/defaults.ts';
@@ -12,13 +13,16 @@ import { checkOrder } from '../../src/core/evaluate.ts';
 const n = Number(process.env.N ?? 2000);
 const fingerprint = process.env.FINGERPRINT === '1';
 const hash = createHash('sha256');
+const dump: string[] = [];
 let sink = 0;
 const t0 = performance.now();
 for (const o of batch(n)) {
   const r = checkOrder(o, DEFAULT_CATALOG, DEFAULT_POLICY);
   if (r.ok) sink += r.value.report.osmolarity.reported;
   if (fingerprint) hash.update(JSON.stringify(r.ok ? r.value.report : r.problems));
+  if (process.env.DUMP) dump.push(JSON.stringify(r.ok ? r.value.report : r.problems));
 }
+if (process.env.DUMP) writeFileSync(process.env.DUMP, dump.join('\n'));
 const s = (performance.now() - t0) / 1000;
 console.log(`${n} orders: ${(n / s).toFixed(0)} orders/s (${(s * 1e6 / n).toFixed(0)} µs/order) ${sink > 0 ? '' : '!'}`);
 if (fingerprint) {

@@ -48,7 +48,8 @@ function scale(order: ReturnType<typeof orderArb.generate> extends never ? never
   return o;
 }
 
-const close = (a: D, b: D) => a.minus(b).abs().lte(new D('1e-20').times(D.max(a.abs(), 1)));
+// Equal to 12 significant digits: the engine rounds each step to 15, so a chain of steps may differ in the last ones.
+const close = (a: D, b: D) => a.minus(b).abs().lte(new D('1e-12').times(D.max(a.abs(), 1)));
 
 describe('engine laws', () => {
   test('scaling every amount and the volume by k leaves osmolarity unchanged', () => {

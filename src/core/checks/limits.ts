@@ -4,12 +4,13 @@ import type { Rule } from '../policy.ts';
 import type { Finding } from '../findings.ts';
 
 /** Decimal places at which a value meets its bound (see `settled`). */
-const COMPARE_PLACES = 12;
+const COMPARE_PLACES = 9;
 
 /**
- * A value as compared with a bound: at 12 decimal places, so a figure that went through a
- * division that cannot be exact (10 mEq calcium → 21.505… mL at 0.2325 mmol/mL → 9.999…9 mEq)
- * meets its bound instead of falling a hair short of it. Far below any clinical precision.
+ * A value as compared with a bound: at 9 decimal places, so a figure that went through a
+ * division that cannot be exact (10 mEq calcium → 21.505… mL at 0.2325 mmol/mL → 9.99999999999999 mEq)
+ * meets its bound instead of falling a hair short of it (or over it). The engine keeps 15 significant
+ * digits, so a figure up to 10⁵ carries its rounding at most in the 10th decimal. Far below any clinical precision.
  */
 export function settled(value: D): D {
   return value.toDecimalPlaces(COMPARE_PLACES);

@@ -63,9 +63,10 @@ interface State {
 
 const ARITHMETIC = 'arithmetic: stock compositions from the catalog (label values)';
 
-// Differences below this many mEq (or mmol) are decimal rounding at 40 significant digits, not
-// a shortfall: without it a proposal computed as "at most X" could fail by 1e-38 when checked again.
-const EPS = new D('1e-20');
+// Differences below this many mEq (or mmol) are decimal rounding at 15 significant digits (about
+// 1e-12 on a bag's amounts), not a shortfall: without it a proposal computed as "at most X" could fail by
+// that much when checked again. A millionth of the 0.001 mEq a pharmacist could measure.
+const EPS = new D('1e-9');
 const over = (a: D, b: D): boolean => a.minus(b).gt(EPS);
 const under = (a: D, b: D): boolean => b.minus(a).gt(EPS);
 const clamp = (x: D, hi: D): D => D.min(D.max(x, ZERO), hi);

@@ -36,7 +36,7 @@ export function meanAndSd(values: readonly D[]): { n: number; mean: D; sd: D | n
   if (n === 0) return null;
   const mean = sum(values).div(n);
   if (n < 2) return { n, mean, sd: null };
-  const squares = sum(values.map((v) => v.minus(mean).pow(2)));
+  const squares = sum(values.map((v) => v.minus(mean)).map((d) => d.times(d)));
   return { n, mean, sd: squares.div(n - 1).sqrt() };
 }
 

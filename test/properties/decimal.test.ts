@@ -1,0 +1,109 @@
+// The engine's decimal against decimal.js (the general-purpose reference library) at the same settings:
+// 15 significant digits, half-even. Every operation the engine uses must give the same value, digit for
+// digit, on random operands: short and 15- or 16-digit coefficients, exponents far apart, signs, zero.
+import { describe, expect, test } from 'vitest';
+import fc from 'fast-check';
+import Decimal from 'decimal.js';
+import { D, PRECISION } from '../../src/core/decimal.ts';
+
+const Ref = Decimal.clone({ precision: PRECISION, rounding: Decimal.ROUND_HALF_EVEN, toExpNeg: -7, toExpPos: 21 });
+type Ref = InstanceType<typeof Ref>;
+
+/** Decimal strings: 1–16 digit coefficients (the engine's own results have 15), exponents −30…30. */
+const coefficient = fc.oneof(
+  fc.integer({ min: 0, max: 999 }),
+  fc.integer({ min: 0, max: 999_999_999 }),
+  fc.integer({ min: 100_000_000_000_000, max: 999_999_999_999_999 }),
+  fc.integer({ min: 0, max: Number.MAX_SAFE_INTEGER }),
+  fc.constantFrom(0, 1, 5, 25, 125, 999_999_999_999_999, 500_000_000_000_000, 1_000_000_000_000_000),
+);
+const exponent = fc.oneof(fc.integer({ min: -6, max: 6 }), fc.integer({ min: -30, max: 30 }));
+const text = fc.tuple(fc.boolean(), coefficient, exponent).map(([negative, c, e]) => `${negative ? '-' : ''}${c}e${e}`);
+const pair = fc.tuple(text, text);
+const rounding = fc.integer({ min: 0, max: 8 });
+const RUNS = { numRuns: Number(process.env.DECIMAL_RUNS ?? 4000) };
+
+/** The same value, the same way: decimal.js's valueOf text (signed zero included). */
+const same = (mine: D, ref: Ref): void => {
+  expect(mine.valueOf()).toBe(ref.valueOf());
+};
+
+describe('the engine decimal gives decimal.js results at 15 digits', { timeout: 120_000 }, () => {
+  test('reading decimal strings and numbers', () => {
+    fc.assert(fc.property(text, (t) => same(new D(t), new Ref(t))), RUNS);
+    fc.assert(fc.property(fc.double({ noNaN: true, noDefaultInfinity: true }), (n) => same(new D(n), new Ref(n))), RUNS);
+  });
+
+  test('plus, minus, times and div, each rounded once to 15 significant digits', () => {
+    fc.assert(fc.property(pair, ([a, b]) => {
+      same(new D(a).plus(b), new Ref(a).plus(b));
+      same(new D(a).minus(b), new Ref(a).minus(b));
+      same(new D(a).times(b), new Ref(a).times(b));
+      if (!new Ref(b).isZero()) same(new D(a).div(b), new Ref(a).div(b));
+    }), RUNS);
+  });
+
+  test('chains of operations keep agreeing (results feed the next operation)', () => {
+    fc.assert(fc.property(fc.array(fc.tuple(fc.constantFrom('plus', 'minus', 'times', 'div'), text), { minLength: 2, maxLength: 12 }), text, (steps, start) => {
+      let mine = new D(start);
+      let ref = new Ref(start);
+      for (const [op, t] of steps) {
+        if (op === 'div' && new Ref(t).isZero()) continue;
+        mine = mine[op](t);
+        ref = ref[op](t);
+        same(mine, ref);
+      }
+    }), RUNS);
+  });
+
+  test('comparisons', () => {
+    fc.assert(fc.property(pair, ([a, b]) => {
+      expect(new D(a).cmp(b)).toBe(new Ref(a).cmp(b));
+      expect(new D(a).gt(b)).toBe(new Ref(a).gt(b));
+      expect(new D(a).lte(b)).toBe(new Ref(a).lte(b));
+      expect(new D(a).eq(b)).toBe(new Ref(a).eq(b));
+    }), RUNS);
+  });
+
+  test('rounding to decimal places in every rounding mode, whole numbers and multiples', () => {
+    fc.assert(fc.property(text, fc.integer({ min: 0, max: 30 }), rounding, (t, dp, rm) => {
+      same(new D(t).toDecimalPlaces(dp, rm), new Ref(t).toDecimalPlaces(dp, rm as Decimal.Rounding));
+      expect(new D(t).toFixed(dp, rm)).toBe(new Ref(t).toFixed(dp, rm as Decimal.Rounding));
+    }), RUNS);
+    fc.assert(fc.property(text, (t) => {
+      same(new D(t).round(), new Ref(t).round());
+      same(new D(t).floor(), new Ref(t).floor());
+      same(new D(t).ceil(), new Ref(t).ceil());
+    }), RUNS);
+    fc.assert(fc.property(pair, rounding, ([a, step], rm) => {
+      expect(new D(a).toNearest(step, rm).toString()).toBe(new Ref(a).toNearest(step, rm as Decimal.Rounding).toString());
+    }), RUNS);
+  });
+
+  test('text and numbers out: toString, toFixed, toNumber, abs, neg, isInteger', () => {
+    fc.assert(fc.property(text, (t) => {
+      const mine = new D(t);
+      const ref = new Ref(t);
+      expect(mine.toString()).toBe(ref.toString());
+      expect(mine.toFixed()).toBe(ref.toFixed());
+      expect(mine.toNumber()).toBe(ref.toNumber());
+      same(mine.abs(), ref.abs());
+      same(mine.neg(), ref.neg());
+      expect(mine.isInteger()).toBe(ref.isInteger());
+      expect(mine.isNeg()).toBe(ref.isNeg());
+    }), RUNS);
+  });
+
+  test('worked cases: a third, a repeating quotient, ties to even at the 15th digit', () => {
+    expect(new D(1).div(3).toString()).toBe('0.333333333333333');
+    expect(new D(20).div(3).toString()).toBe('6.66666666666667');
+    expect(new D('0.1').plus('0.2').toString()).toBe('0.3');
+    // 1000000000000005 has 16 digits: half-even keeps the even 15th digit (…000), 1000000000000015 goes up (…002).
+    expect(new D('1000000000000000').plus(5).toString()).toBe('1000000000000000');
+    expect(new D('1000000000000010').plus(5).toString()).toBe('1000000000000020');
+    expect(new D('123.456').times('0.001').toString()).toBe('0.123456');
+    expect(new D(1).div(0).isFinite()).toBe(false);
+    expect(new D('Infinity').plus(1).toString()).toBe('Infinity');
+    expect(() => new D('1,5')).toThrow();
+  });
+});
