@@ -11,27 +11,7 @@ import { listInputs, readInput } from './sources.ts';
 import { addReport, newSummary, summaryText } from './summary.ts';
 import { CAUTION } from './table.ts';
 
-export const CHECK_USAGE = `  osmocount check PATH... [--catalog FILE] [--policy FILE] [--json | --ndjson]
-                  [--only VERDICT[,VERDICT]] [--fail-on warn|block]
-      Check PN orders, then print a summary: orders by verdict, findings that warn or hold
-      by code, and the ten highest osmolarities on peripheral bags.
-      A PATH is a file or a directory, searched recursively for *.json, *.ndjson, *.jsonl
-      and *.csv. A .json file holds one order or an array of orders; .ndjson and .jsonl
-      one order per line (streamed); .csv one row per order line (streamed), with the
-      columns order_id, patient_id, weight_kg, age_group, route, volume_ml, product,
-      amount, unit and, if wanted, hours, species, fill, patient_name, location, note,
-      order_note (see the README for the layout).
-      --json            reports as JSON: one object, or an array when there are several
-      --ndjson          reports as NDJSON, one line per order, written as they are checked
-                        (with --json or --ndjson the summary goes to stderr, so stdout
-                        stays valid JSON)
-      --only VERDICTS   print only orders with these verdicts: pass, warn, block (or hold),
-                        comma-separated or repeated; the summary still counts every order
-      --fail-on LEVEL   exit 1 when any order is at this verdict or worse: warn, or block
-                        (the default)
-      Exit 0: no order reached --fail-on; 1: some order did; 2: an input was invalid. Each
-      problem is printed on stderr as file: where: path: message (where = [index], line N
-      or row N), and every valid order is still checked and reported.`;
+export { CHECK_USAGE } from './usage.ts';
 
 const VERDICT_NAMES: Readonly<Record<string, Verdict>> = { pass: 'pass', warn: 'warn', block: 'block', hold: 'block' };
 const RANK: Readonly<Record<Verdict, number>> = { pass: 0, warn: 1, block: 2 };

@@ -6,7 +6,9 @@ import { ION_INFO, ION_KEYS } from '../core/compound/ions.ts';
 import { SPECIES, isSpeciesId } from '../core/species.ts';
 import { ordersFromText, formatFileProblem, type FileProblem } from './inputs.ts';
 import { CAUTION, columns } from './table.ts';
-import { EXIT, USAGE, loadSetup, type CliIo } from './run.ts';
+import { EXIT, type CliIo } from './io.ts';
+import { loadSetup } from './setup.ts';
+import { USAGE } from './usage.ts';
 
 const f2 = (n: number): string => n.toFixed(2);
 const signed = (n: number): string => (n > 0 ? `+${f2(n)}` : f2(n));

@@ -10,7 +10,9 @@ import { parseDateTime } from '../ui/print/localTime.ts';
 import { sheetSequence } from '../ui/print/mixing.ts';
 import { PAPERS, checkTimeZone, parseLabelSize, type Paper, type PrintOptions, type PrintSequenceStep } from '../ui/print/options.ts';
 import { ordersFromText, formatFileProblem, type FileProblem } from './inputs.ts';
-import { EXIT, USAGE, loadSetup, type CliIo } from './run.ts';
+import { EXIT, type CliIo } from './io.ts';
+import { loadSetup } from './setup.ts';
+import { USAGE } from './usage.ts';
 
 /** The institution printed when neither --institution nor the policy names one. */
 export const NO_INSTITUTION = '(institution not set)';
