@@ -157,8 +157,13 @@ function toReference(d: D): Reference {
   return d.x ?? new Reference(d.valueOf());
 }
 
+/** Whole numbers −1024…1024, made once: operands like `.times(1000)` or `.gt(0)` allocate nothing. */
+let SMALL_INTEGERS: readonly D[] = [];
+
 function parsed(v: Numeric): D {
-  return v instanceof D ? v : new D(v);
+  if (v instanceof D) return v;
+  if (typeof v === 'number' && v >= -1024 && v <= 1024 && Number.isInteger(v) && !Object.is(v, -0)) return SMALL_INTEGERS[v + 1024]!;
+  return new D(v);
 }
 
 let parsedC = 0;
@@ -626,6 +631,8 @@ function add(a: number, ea: number, b: number, eb: number): D {
   const lo = (scaled - (s - bv)) + (tail - bv);
   return roundPair(s, lo, eb);
 }
+
+SMALL_INTEGERS = Array.from({ length: 2049 }, (_, i) => new D(i - 1024));
 
 export const ZERO = new D(0);
 export const ONE = new D(1);

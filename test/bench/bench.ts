@@ -12,7 +12,8 @@ import { checkOrder } from '../../src/core/evaluate.ts';
 import { computeBag } from '../../src/core/compute/bag.ts';
 import { parseOrder, type Order } from '../../src/core/order.ts';
 import { batch, ndjsonChunk, ndjsonPool, rng, type GenOrder } from './generate.ts';
-import { decimalOsmolarity, floatOsmolarity, prepare, toFloat } from './floatReference.ts';
+import { DecimalJs, exactOsmolarity, floatOsmolarity, prepare, toDecimalJs, toFloat } from './floatReference.ts';
+import { D } from '../../src/core/decimal.ts';
 import { coldStartMs, runBuiltCli } from './cliRun.ts';
 
 const TARGET = { ordersPerSecond: 20_000, decimalOverFloat: 10, memoryGrowthMb: 100, coldStartMs: 300 } as const;
@@ -21,6 +22,11 @@ const STREAM_FULL = 1_000_000;
 const STREAM_SMALL = 10_000;
 /** The whole bench should stay near ten minutes on a 2-core machine; the big stream gets what is left of this. */
 const BUDGET_S = 540;
+
+const D_ZERO = new D(0);
+const D_THOUSAND = new D(1000);
+const JS_ZERO = new DecimalJs(0);
+const JS_THOUSAND = new DecimalJs(1000);
 
 const CATALOG = DEFAULT_CATALOG;
 const POLICY = DEFAULT_POLICY;
@@ -59,6 +65,7 @@ function batchFigures(): void {
   let bagMs = 0;
   let floatMs = 0;
   let decimalMs = 0;
+  let decimalJsMs = 0;
   let validated = 0;
   let worstRelative = 0;
   let maxHeap = 0;
@@ -90,13 +97,17 @@ function batchFigures(): void {
     const okOrders = block.filter((o) => parseOrder(o, CATALOG).ok);
     const asDecimal = okOrders.map((o) => prepare(o, CATALOG));
     const asFloat = asDecimal.map(toFloat);
+    const asDecimalJs = asDecimal.map(toDecimalJs);
     const floatParticle = new Float64Array(asFloat.length);
     t0 = performance.now();
     for (let i = 0; i < asFloat.length; i++) floatParticle[i] = floatOsmolarity(asFloat[i]!).particle;
     floatMs += performance.now() - t0;
     t0 = performance.now();
-    for (let i = 0; i < asDecimal.length; i++) sink += decimalOsmolarity(asDecimal[i]!).label.isZero() ? 0 : 1;
+    for (let i = 0; i < asDecimal.length; i++) sink += exactOsmolarity(asDecimal[i]!, D_ZERO, D_THOUSAND).label.isZero() ? 0 : 1;
     decimalMs += performance.now() - t0;
+    t0 = performance.now();
+    for (let i = 0; i < asDecimalJs.length; i++) sink += exactOsmolarity(asDecimalJs[i]!, JS_ZERO, JS_THOUSAND).label.isZero() ? 0 : 1;
+    decimalJsMs += performance.now() - t0;
     validated += parsed.length;
     for (let i = 0; i < parsed.length; i++) {
       const e = engineParticle[i]!;
@@ -119,7 +130,8 @@ function batchFigures(): void {
   const perOrder = (ms: number) => (ms * 1000) / validated;
   const float = perOrder(floatMs);
   line('float-only reference (volumes, fill, particle and label sums)', `${one.format(float)} µs/order`);
-  line('the same reference in decimal.js', `${one.format(perOrder(decimalMs))} µs/order (${one.format(decimalMs / floatMs)}× float)`);
+  line('the same reference in the engine\'s decimal', `${one.format(perOrder(decimalMs))} µs/order (${one.format(decimalMs / floatMs)}× float)`);
+  line('the same reference in decimal.js (28 digits)', `${one.format(perOrder(decimalJsMs))} µs/order (${one.format(decimalJsMs / floatMs)}× float)`);
   const ratio = bagMs / floatMs;
   line('engine bag computation (decimal, computeBag)', `${one.format(perOrder(bagMs))} µs/order (${one.format(ratio)}× float)`, `target ≤ ${TARGET.decimalOverFloat}×: ${mark(ratio <= TARGET.decimalOverFloat)}`);
   line('full engine per order (checkOrder)', `${one.format(perOrder(engineMs))} µs/order (${num.format(engineMs / floatMs)}× float)`);

@@ -1,7 +1,9 @@
-// The particle sum written twice outside the engine, for the benchmarks' "price of exact arithmetic":
-// once in plain binary floats and once, line for line the same, in decimal.js. Both follow the exchange
+// The particle sum written outside the engine, for the benchmarks' "price of exact arithmetic": in plain
+// binary floats and, line for line the same, in exact decimals (decimal.js at 28 digits, and the engine's
+// own decimal at 15). All follow the exchange
 // format's definition (osmolarity.particle = Σ volume × (Σ perMl + g/mL × mOsm/g) ÷ final volume; the
 // label sum likewise with mOsmPerMl) and the engine's fill rule (the fill makes up the ordered volume).
+import Decimal from 'decimal.js';
 import { D, ZERO } from '../../src/core/decimal.ts';
 import { SPECIES, type SpeciesId } from '../../src/core/species.ts';
 import type { Catalog, Product } from '../../src/core/catalog.ts';
@@ -85,22 +87,48 @@ export function floatOsmolarity(o: Prepared<number>): { particle: number; label:
   return volume === 0 ? { particle: 0, label: 0 } : { particle: (particle / volume) * 1000, label: (label / volume) * 1000 };
 }
 
-const THOUSAND = new D(1000);
+/** The decimal operations the exact sum needs: the engine's D and decimal.js both have them. */
+interface Exact<T> {
+  plus(y: T): T;
+  minus(y: T): T;
+  times(y: T): T;
+  div(y: T): T;
+  isZero(): boolean;
+  gt(y: T): boolean;
+}
 
-/** The same, line for line, in decimal.js: what exact arithmetic alone costs. */
-export function decimalOsmolarity(o: Prepared<D>): { particle: D; label: D } {
-  let added = ZERO;
-  let particle = ZERO;
-  let label = ZERO;
-  let fill: Line<D> | null = null;
+/** decimal.js at 28 significant digits: the library the engine computed with before it had its own decimal. */
+export const DecimalJs = Decimal.clone({ precision: 28, rounding: Decimal.ROUND_HALF_EVEN });
+export type DecimalJs = InstanceType<typeof DecimalJs>;
+
+/** The prepared order in decimal.js numbers. */
+export function toDecimalJs(o: Prepared<D>): Prepared<DecimalJs> {
+  const n = (d: D) => new DecimalJs(d.valueOf());
+  return {
+    volumeMl: n(o.volumeMl),
+    lines: o.lines.map((l) => ({
+      fill: l.fill, amount: n(l.amount), base: l.base, mmolPerMl: n(l.mmolPerMl), gramsPerMl: n(l.gramsPerMl),
+      particlePerMl: n(l.particlePerMl), labelPerMl: n(l.labelPerMl), valence: n(l.valence),
+    })),
+  };
+}
+
+const max = <T extends Exact<T>>(a: T, b: T): T => (b.gt(a) ? b : a);
+
+/** The same, line for line, in exact decimals (`zero` and `thousand` in the same type): what exactness alone costs. */
+export function exactOsmolarity<T extends Exact<T>>(o: Prepared<T>, zero: T, thousand: T): { particle: T; label: T } {
+  let added = zero;
+  let particle = zero;
+  let label = zero;
+  let fill: Line<T> | null = null;
   for (const l of o.lines) {
     if (l.fill) { fill = l; continue; }
-    let ml: D;
+    let ml: T;
     switch (l.base) {
       case 'mL': ml = l.amount; break;
       case 'g': ml = l.amount.div(l.gramsPerMl); break;
-      case 'mEq': ml = l.mmolPerMl.isZero() ? ZERO : l.amount.div(l.valence).div(l.mmolPerMl); break;
-      case 'mmol': ml = l.mmolPerMl.isZero() ? ZERO : l.amount.div(l.mmolPerMl); break;
+      case 'mEq': ml = l.mmolPerMl.isZero() ? zero : l.amount.div(l.valence).div(l.mmolPerMl); break;
+      case 'mmol': ml = l.mmolPerMl.isZero() ? zero : l.amount.div(l.mmolPerMl); break;
     }
     added = added.plus(ml);
     particle = particle.plus(ml.times(l.particlePerMl));
@@ -108,10 +136,10 @@ export function decimalOsmolarity(o: Prepared<D>): { particle: D; label: D } {
   }
   let volume = added;
   if (fill) {
-    const fillMl = D.max(o.volumeMl.minus(added), ZERO);
+    const fillMl = max(o.volumeMl.minus(added), zero);
     particle = particle.plus(fillMl.times(fill.particlePerMl));
     label = label.plus(fillMl.times(fill.labelPerMl));
-    volume = D.max(o.volumeMl, added);
+    volume = max(o.volumeMl, added);
   }
-  return volume.isZero() ? { particle: ZERO, label: ZERO } : { particle: particle.div(volume).times(THOUSAND), label: label.div(volume).times(THOUSAND) };
+  return volume.isZero() ? { particle: zero, label: zero } : { particle: particle.div(volume).times(thousand), label: label.div(volume).times(thousand) };
 }
