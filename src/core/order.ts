@@ -4,6 +4,7 @@ import { isSpeciesId, isPhosphateSpecies, isCharged, SPECIES, type SpeciesId } f
 import { decimal, optionalDecimal, parseWith } from './schema.ts';
 import { NUTRIENT_ROLES, type Catalog, type Product } from './catalog.ts';
 import type { Problem, Result } from './problems.ts';
+import { readPlainOrder } from './plainOrder.ts';
 
 export const AGE_GROUPS = ['adult', 'child', 'term-neonate', 'preterm-neonate'] as const;
 /** The patient's age group: it selects the policy's limits. */
@@ -84,6 +85,8 @@ export const orderFileSchema = z.object({
   note: z.string().optional(),
 });
 export type OrderInput = z.input<typeof orderFileSchema>;
+/** An order file as the schema reads it (decimals read, ids trimmed), before it is bound to the catalog. */
+export type OrderFile = z.output<typeof orderFileSchema>;
 
 /** One line of a validated order: a product, and how much of it (or the fill). */
 export type OrderLine =
@@ -159,7 +162,8 @@ function bindLine(line: LineInput, index: number, catalog: Catalog, problems: Pr
  * Unknown products and species, mEq of phosphate and two fill lines are errors.
  */
 export function parseOrder(input: unknown, catalog: Catalog): Result<Order> {
-  const parsed = parseWith(orderFileSchema, input);
+  const plain = readPlainOrder(input);
+  const parsed: Result<OrderFile> = plain ? { ok: true, value: plain } : parseWith(orderFileSchema, input);
   if (!parsed.ok) return parsed;
   const o = parsed.value;
   const problems: Problem[] = [];
