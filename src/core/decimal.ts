@@ -473,6 +473,20 @@ export class D {
     if (dp === undefined) return this;
     if (this.x !== null) return fromReference(this.x.toDecimalPlaces(dp, rm as Decimal.Rounding));
     if (this.e >= -dp || this.c === 0) return this;
+    const q = this.roundedCoefficient(dp, rm);
+    return q === 0 ? new D(RAW, this.c < 0 ? -0 : 0, 0, null) : canonical(q, -dp);
+  }
+
+  /** toDecimalPlaces(dp) (half-even) as the nearest binary float, without making the rounded decimal. */
+  toRoundedNumber(dp: number): number {
+    if (this.x !== null || this.e >= -dp || this.c === 0) return this.toDecimalPlaces(dp).toNumber();
+    const q = this.roundedCoefficient(dp, HALF_EVEN);
+    if (q === 0) return this.c < 0 ? -0 : 0;
+    return dp <= 22 ? q / POW10[dp]! : Number(`${q}e-${dp}`);
+  }
+
+  /** The signed coefficient of this value rounded to `dp` places, at exponent −dp (when this.e < −dp). */
+  private roundedCoefficient(dp: number, rm: number): number {
     const negative = this.c < 0;
     const magnitude = Math.abs(this.c);
     const shift = -dp - this.e;
@@ -485,7 +499,7 @@ export class D {
       if (shift > 15) remainder = magnitude;
       q = roundQuotient(q, d, rm, negative);
     }
-    return q === 0 ? new D(RAW, negative ? -0 : 0, 0, null) : canonical(negative ? -q : q, -dp);
+    return negative ? -q : q;
   }
 
   toDP(dp?: number, rm?: number): D {
@@ -664,7 +678,7 @@ export function sum(values: Iterable<D>): D {
 export function round(value: D, places: number): number {
   if (value.isZero()) return 0;
   if (!value.isFinite()) throw new Error('non-finite value reached the display edge');
-  const n = value.toDecimalPlaces(places, HALF_EVEN).toNumber();
+  const n = value.toRoundedNumber(places);
   return Object.is(n, -0) ? 0 : n;
 }
 

@@ -69,6 +69,7 @@ describe('the engine decimal gives decimal.js results at 15 digits', { timeout: 
     fc.assert(fc.property(text, fc.integer({ min: 0, max: 30 }), rounding, (t, dp, rm) => {
       same(new D(t).toDecimalPlaces(dp, rm), new Ref(t).toDecimalPlaces(dp, rm as Decimal.Rounding));
       expect(new D(t).toFixed(dp, rm)).toBe(new Ref(t).toFixed(dp, rm as Decimal.Rounding));
+      expect(new D(t).toRoundedNumber(dp)).toBe(new Ref(t).toDecimalPlaces(dp).toNumber());
     }), RUNS);
     fc.assert(fc.property(text, (t) => {
       same(new D(t).round(), new Ref(t).round());
