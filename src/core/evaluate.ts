@@ -3,6 +3,7 @@ import { CHECKS } from './checks/index.ts';
 import { verdictOf } from './findings.ts';
 import { parseOrder, type Order } from './order.ts';
 import { makeEvaluation, type Evaluation } from './evaluation.ts';
+import type { Bag } from './compute/bag.ts';
 import type { Catalog } from './catalog.ts';
 import type { Policy } from './policy.ts';
 import type { Result } from './problems.ts';
@@ -18,14 +19,17 @@ export interface EvaluateOptions {
   suggestions?: boolean;
 }
 
-/** Compute a validated order's bag, run every check, look for suggestions, and build its report. */
-export function evaluateOrder(order: Order, catalog: Catalog, policy: Policy, options: EvaluateOptions = {}): Evaluation {
-  const bag = computeBag(order, policy);
+/**
+ * Compute a validated order's bag, run every check, look for suggestions, and build its report.
+ * `bag`, when given, is this order's bag already computed (the solver passes it for a change that
+ * cannot alter the bag, such as the route).
+ */
+export function evaluateOrder(order: Order, catalog: Catalog, policy: Policy, options: EvaluateOptions = {}, bag: Bag = computeBag(order, policy)): Evaluation {
   const findings = CHECKS.flatMap((check) => check(bag, policy));
   const verdict = verdictOf(findings);
   const suggestions = options.suggestions === false
     ? []
-    : suggest({ order, bag, findings, verdict }, catalog, policy, (modified) => evaluateOrder(modified, catalog, policy, { suggestions: false }));
+    : suggest({ order, bag, findings, verdict }, catalog, policy, (modified, sameBag) => evaluateOrder(modified, catalog, policy, { suggestions: false }, sameBag));
   return makeEvaluation({ order, bag, findings, verdict, suggestions }, catalog, policy);
 }
 

@@ -63,5 +63,9 @@ export interface Checked {
   verdict: Verdict;
 }
 
-/** Re-checks a modified order through every check (the engine's evaluateOrder, without suggestions). */
-export type Evaluate = (order: Order) => Checked;
+/**
+ * Re-checks a modified order through every check (the engine's evaluateOrder, without suggestions).
+ * `bag`, when given, is the modified order's bag, reused instead of computed again: only for a change
+ * the bag does not depend on (the route).
+ */
+export type Evaluate = (order: Order, bag?: Bag) => Checked;
