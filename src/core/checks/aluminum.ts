@@ -16,7 +16,7 @@ const TOP = 3;
 export const aluminum: Check = (bag, policy) => {
   const rule = ruleFor(policy, 'aluminum', bag.order.patient.ageGroup);
   if (!rule?.max || bag.finalVolumeMl.isZero()) return [];
-  const inBag = bag.lines.filter((l) => l.volumeMl.gt(0));
+  const inBag = bag.lines.filter((l) => l.inBag);
   const missing = inBag.filter((l) => l.product.aluminumMcgPerL === null);
   const known = inBag.filter((l) => l.product.aluminumMcgPerL !== null);
   if (known.length === 0) {

@@ -4,12 +4,15 @@ import type { Order, OrderLine, BaseUnit } from '../order.ts';
 import type { Policy } from '../policy.ts';
 import type { Product, Role } from '../catalog.ts';
 import { lineVolumeMl, perDayAmount } from './volumes.ts';
+import { stockFigures } from './stock.ts';
 
 /** One line of the computed bag: how much stock goes in and what it brings. */
 export interface BagLine {
   line: OrderLine;
   product: Product;
   volumeMl: D;
+  /** True when the line puts volume in the bag (above zero): the lines a finding names are among these. */
+  inBag: boolean;
   /** The ordered amount per day in the line's base unit (null for the fill line). */
   perDay: { amount: D; unit: BaseUnit } | null;
   /** Ideal particles this line adds, mOsm (volume × the stock's particles per mL). */
@@ -83,12 +86,6 @@ function energySource(role: Role): EnergySource {
   }
 }
 
-function lineKcal(product: Product, volumeMl: D): D {
-  if (product.kcalPerMl) return product.kcalPerMl.times(volumeMl);
-  if (product.nutrient?.kcalPerGram) return product.nutrient.kcalPerGram.times(product.nutrient.gramsPerMl).times(volumeMl);
-  return ZERO;
-}
-
 /** x per litre of the bag (x ÷ V × 1000); zero for an empty bag. */
 export function perLitre(x: D, volumeMl: D): D {
   return volumeMl.isZero() ? ZERO : x.div(volumeMl).times(THOUSAND);
@@ -102,11 +99,12 @@ function makeLine(line: OrderLine, volumeMl: D, perDay: BagLine['perDay']): BagL
   const product = line.product;
   const particleMOsm = product.particlePerMl.times(volumeMl);
   const labelMissing = product.mOsmPerMl === null && product.role !== 'water';
+  const kcalPerMl = stockFigures(product).kcalPerMl;
   return {
-    line, product, volumeMl, perDay, particleMOsm,
+    line, product, volumeMl, inBag: volumeMl.gt(ZERO), perDay, particleMOsm,
     labelMOsm: product.mOsmPerMl ? product.mOsmPerMl.times(volumeMl) : particleMOsm,
     labelMissing,
-    kcal: lineKcal(product, volumeMl),
+    kcal: kcalPerMl ? kcalPerMl.times(volumeMl) : ZERO,
     aluminumMcg: product.aluminumMcgPerL ? product.aluminumMcgPerL.times(volumeMl).div(THOUSAND) : ZERO,
   };
 }
@@ -140,10 +138,7 @@ export function computeBag(order: Order, policy: Policy): Bag {
   let label = ZERO;
   let aluminum = ZERO;
   for (const l of lines) {
-    for (const s of Object.keys(l.product.perMl) as SpeciesId[]) {
-      const perMl = l.product.perMl[s];
-      if (perMl) speciesMmol[s] = speciesMmol[s].plus(perMl.times(l.volumeMl));
-    }
+    for (const [s, perMl] of stockFigures(l.product).perMl) speciesMmol[s] = speciesMmol[s].plus(perMl.times(l.volumeMl));
     const n = l.product.nutrient;
     if (n) {
       const g = n.gramsPerMl.times(l.volumeMl);
