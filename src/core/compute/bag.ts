@@ -119,7 +119,8 @@ export function computeBag(order: Order, policy: Policy): Bag {
   let fillLine: OrderLine | null = null;
   for (const line of order.lines) {
     if (line.kind === 'fill') { fillLine = line; continue; }
-    amountLines.push(makeLine(line, lineVolumeMl(line, weight), perDayAmount(line, weight)));
+    const perDay = perDayAmount(line, weight);
+    amountLines.push(makeLine(line, lineVolumeMl(line, weight, perDay), perDay));
   }
   const addedVolumeMl = sum(amountLines.map((l) => l.volumeMl));
   let finalVolumeMl = addedVolumeMl;
