@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { D, ZERO, ONE, sum, round } from '../decimal.ts';
+import { D, ZERO, sum, round } from '../decimal.ts';
 import { SPECIES, type SpeciesId } from '../species.ts';
 import { perLitre, type Bag } from './bag.ts';
 import { stockFigures } from './stock.ts';
@@ -69,10 +69,11 @@ export function osmoticCoefficientEstimate(bag: Bag): OsmolalityEstimate {
   for (const l of bag.lines) {
     if (!l.inBag || !l.particleMOsm.gt(ZERO)) continue;
     const nutrientMOsm = l.product.nutrient ? stockFigures(l.product).nutrientMOsmPerMl.times(l.volumeMl) : ZERO;
-    const ionMOsm = l.particleMOsm.minus(nutrientMOsm);
-    const nutrientPhi = l.product.role === 'dextrose' ? GLUCOSE_PHI : ONE;
+    const ionMOsm = nutrientMOsm.isZero() ? l.particleMOsm : l.particleMOsm.minus(nutrientMOsm);
     const ion = ionCoefficient(l.product);
-    total = total.plus(nutrientMOsm.times(nutrientPhi)).plus(ionMOsm.times(ion?.phi ?? ONE));
+    // A zero term, or φ = 1, would change no digit of the total: both are left out.
+    if (!nutrientMOsm.isZero()) total = total.plus(l.product.role === 'dextrose' ? nutrientMOsm.times(GLUCOSE_PHI) : nutrientMOsm);
+    if (!ionMOsm.isZero()) total = total.plus(ion ? ionMOsm.times(ion.phi) : ionMOsm);
     const idealNutrient = nutrientMOsm.gt(ZERO) && l.product.role !== 'dextrose';
     if (idealNutrient || (ionMOsm.gt(ZERO) && !ion)) uncounted.push(l.product.name);
   }
