@@ -1,7 +1,6 @@
 import { fmt } from '../format.ts';
 import { ruleFor, type Policy } from '../policy.ts';
 import { propose, appearsText } from './consequences.ts';
-import type { Order } from '../order.ts';
 import type { Checked, Evaluate, Suggestion } from './suggestion.ts';
 
 /**
@@ -16,8 +15,7 @@ export function peripheralRouteSuggestion(current: Checked, policy: Policy, eval
   if (!limit) return { kind: 'peripheral-route', status: 'unavailable', message: 'The policy sets no peripheral osmolarity limit for this age group.', notes: [] };
   // The bag does not depend on the route: over the limit now means over it peripherally, with no re-check.
   const over = current.bag.osmolarity.reported.gt(limit);
-  const peripheral: Order = { ...order, route: 'peripheral' };
-  const next = over ? null : evaluate(peripheral, { ...current.bag, order: peripheral });
+  const next = over ? null : evaluate({ ...order, route: 'peripheral' }, 'route');
   const osm = current.bag.osmolarity.reported;
   if (next === null || next.findings.some((f) => f.code === 'osmolarity-peripheral')) {
     return {

@@ -65,7 +65,7 @@ export interface Checked {
 
 /**
  * Re-checks a modified order through every check (the engine's evaluateOrder, without suggestions).
- * `bag`, when given, is the modified order's bag, reused instead of computed again: only for a change
- * the bag does not depend on (the route).
+ * `change: 'route'` says the order differs from the evaluated one in its route alone: the engine then
+ * keeps the bag (it does not depend on the route) and the findings of the checks that do not read it.
  */
-export type Evaluate = (order: Order, bag?: Bag) => Checked;
+export type Evaluate = (order: Order, change?: 'route') => Checked;
