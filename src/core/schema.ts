@@ -18,9 +18,13 @@ function describe(b: Bound): string {
  */
 export function decimal(bound: Bound = {}) {
   const message = describe(bound);
+  // The bounds as decimals, made once per field rather than at every comparison.
+  const gt = bound.gt === undefined ? null : new D(bound.gt);
+  const min = bound.min === undefined ? null : new D(bound.min);
+  const max = bound.max === undefined ? null : new D(bound.max);
   return z.unknown().transform((value, ctx): D => {
     const d = toDecimal(value);
-    if (d === null || (bound.gt !== undefined && d.lte(bound.gt)) || (bound.min !== undefined && d.lt(bound.min)) || (bound.max !== undefined && d.gt(bound.max))) {
+    if (d === null || (gt !== null && d.lte(gt)) || (min !== null && d.lt(min)) || (max !== null && d.gt(max))) {
       ctx.addIssue({ code: 'custom', message: value === undefined ? `is required (${message})` : message });
       return z.NEVER;
     }

@@ -2,7 +2,6 @@ import type { D } from '../decimal.ts';
 import { fmt } from '../format.ts';
 import { ruleFor, type Policy } from '../policy.ts';
 import { perLitre, type Bag } from '../compute/bag.ts';
-import { holds } from '../compute/stock.ts';
 import { as, mmolToMEq } from '../units.ts';
 import { fromRule, type Check, type Finding } from '../findings.ts';
 import { asInfo, outside, settled, DEFER } from './limits.ts';
@@ -52,9 +51,9 @@ export const calciumPhosphate: Check = (bag, policy) => {
   if (!lv.calciumMmolPerL.gt(0) || !(pInorganic.gt(0) || pOrganic.gt(0))) return [];
   const age = bag.order.patient.ageGroup;
   const route = bag.order.route;
-  const caLines = linesWith(bag, (l) => holds(l.product, 'Ca'));
-  const pLines = linesWith(bag, (l) => holds(l.product, 'phosphate'));
-  const organicLines = linesWith(bag, (l) => holds(l.product, 'glycerophosphate'));
+  const caLines = linesWith(bag, (l) => l.stock.holds.has('Ca'));
+  const pLines = linesWith(bag, (l) => l.stock.holds.has('phosphate'));
+  const organicLines = linesWith(bag, (l) => l.stock.holds.has('glycerophosphate'));
   const curve = curveScreen(bag, policy, lv, [...caLines, ...pLines]);
   const curveNote = curve.note ? ` ${curve.note}` : '';
   const organicNote = pOrganic.gt(0) ? ` Organic phosphate (glycerophosphate) ${fmt(pOrganic, 2)} mmol/L is not counted in the inorganic term.` : '';
@@ -83,7 +82,7 @@ export const calciumPhosphate: Check = (bag, policy) => {
       });
       out.push(over ? f : asInfo(f));
     }
-    const chlorideLines = linesWith(bag, (l) => holds(l.product, 'Ca') && holds(l.product, 'Cl'));
+    const chlorideLines = linesWith(bag, (l) => l.stock.holds.has('Ca') && l.stock.holds.has('Cl'));
     const chlorideRule = ruleFor(policy, 'calcium-chloride-phosphate', age);
     if (chlorideRule && chlorideLines.length > 0) {
       out.push(fromRule('calcium-phosphate', chlorideRule, {

@@ -2,7 +2,6 @@ import { D, ZERO } from '../decimal.ts';
 import { fmt } from '../format.ts';
 import { doseRangeFor, DOSE_NUTRIENTS, type DoseNutrient, type Rule } from '../policy.ts';
 import type { Bag, BagLine } from '../compute/bag.ts';
-import { holds } from '../compute/stock.ts';
 import type { SpeciesId } from '../species.ts';
 import { as, mmolToMEq } from '../units.ts';
 import { fromRule, type Check, type Finding } from '../findings.ts';
@@ -46,11 +45,11 @@ export function doseIn(bag: Bag, nutrient: DoseNutrient, unit: string): D | null
 
 function contributes(l: BagLine, nutrient: DoseNutrient): boolean {
   const ion = ION[nutrient];
-  if (ion) return holds(l.product, ion);
+  if (ion) return l.stock.holds.has(ion);
   switch (nutrient) {
     case 'protein': return l.product.role === 'amino-acids';
     case 'lipid': case 'lipidRate': return l.product.role === 'lipid';
-    case 'phosphate': return holds(l.product, 'phosphate') || holds(l.product, 'glycerophosphate');
+    case 'phosphate': return l.stock.holds.has('phosphate') || l.stock.holds.has('glycerophosphate');
     case 'energy': return l.kcal.gt(ZERO);
     case 'npcToN': return l.product.role === 'amino-acids' || l.product.role === 'dextrose' || l.product.role === 'lipid';
     default: return false;

@@ -2,7 +2,6 @@ import { D, ZERO, sum } from '../decimal.ts';
 import { fmt } from '../format.ts';
 import { ruleFor, type Rule } from '../policy.ts';
 import { perLitre, type Bag } from '../compute/bag.ts';
-import { holds } from '../compute/stock.ts';
 import { fromRule, type Check, type Finding } from '../findings.ts';
 import { asInfo, outside, rangeText, reportedLimit, DEFER } from './limits.ts';
 
@@ -67,7 +66,7 @@ export const tnaStability: Check = (bag, policy) => {
     minimumFinding(ruleFor(policy, 'tna-lipid-min', age), bag.percent.lipid, 'lipid', 'lipid', linesOf('lipid')),
   ];
   const loads = cationLoads(bag);
-  const divalentLines = bag.lines.filter((l) => l.inBag && (holds(l.product, 'Ca') || holds(l.product, 'Mg'))).map((l) => l.line.index);
+  const divalentLines = bag.lines.filter((l) => l.inBag && (l.stock.holds.has('Ca') || l.stock.holds.has('Mg'))).map((l) => l.line.index);
   const divalentRule = ruleFor(policy, 'tna-divalent', age);
   if (divalentRule?.max) {
     const crossed = outside(loads.divalent, divalentRule);
@@ -89,7 +88,7 @@ export const tnaStability: Check = (bag, policy) => {
     const f = fromRule('tna-stability', canRule, {
       value: can, limit: canRule.max, decimals: 1, screen: 'critical-aggregation-number',
       message: `Critical aggregation number (information): ${formula}${threshold}.${crossed ? ` It is over the threshold. ${DEFER}` : ''}`,
-      lines: bag.lines.filter((l) => l.inBag && CATIONS.some((s) => holds(l.product, s))).map((l) => l.line.index),
+      lines: bag.lines.filter((l) => l.inBag && CATIONS.some((s) => l.stock.holds.has(s))).map((l) => l.line.index),
     });
     out.push(crossed ? f : asInfo(f));
   }

@@ -4,12 +4,14 @@ import type { Order, OrderLine, BaseUnit } from '../order.ts';
 import type { Policy } from '../policy.ts';
 import type { Product, Role } from '../catalog.ts';
 import { lineVolumeMl, perDayAmount } from './volumes.ts';
-import { stockFigures } from './stock.ts';
+import { stockFigures, type StockFigures } from './stock.ts';
 
 /** One line of the computed bag: how much stock goes in and what it brings. */
 export interface BagLine {
   line: OrderLine;
   product: Product;
+  /** The stock's per-mL figures and the species it holds. */
+  stock: StockFigures;
   volumeMl: D;
   /** True when the line puts volume in the bag (above zero): the lines a finding names are among these. */
   inBag: boolean;
@@ -59,6 +61,8 @@ export interface Bag {
   totalMOsm: { particle: D; labelSum: D };
   /** Ideal osmotic pressure at the policy's temperature, mmHg (van 't Hoff). */
   osmoticPressureMmHg: D;
+  /** µg of aluminum in the whole bag (Σ each stock's labelled maximum × its volume). */
+  aluminumMcg: D;
   aluminumMcgPerKgPerDay: D;
 }
 
@@ -99,12 +103,12 @@ function makeLine(line: OrderLine, volumeMl: D, perDay: BagLine['perDay']): BagL
   const product = line.product;
   const particleMOsm = product.particlePerMl.times(volumeMl);
   const labelMissing = product.mOsmPerMl === null && product.role !== 'water';
-  const kcalPerMl = stockFigures(product).kcalPerMl;
+  const stock = stockFigures(product);
   return {
-    line, product, volumeMl, inBag: volumeMl.gt(ZERO), perDay, particleMOsm,
+    line, product, stock, volumeMl, inBag: volumeMl.gt(ZERO), perDay, particleMOsm,
     labelMOsm: product.mOsmPerMl ? product.mOsmPerMl.times(volumeMl) : particleMOsm,
     labelMissing,
-    kcal: kcalPerMl ? kcalPerMl.times(volumeMl) : ZERO,
+    kcal: stock.kcalPerMl ? stock.kcalPerMl.times(volumeMl) : ZERO,
     aluminumMcg: product.aluminumMcgPerL ? product.aluminumMcgPerL.times(volumeMl).div(THOUSAND) : ZERO,
   };
 }
@@ -139,7 +143,7 @@ export function computeBag(order: Order, policy: Policy): Bag {
   let label = ZERO;
   let aluminum = ZERO;
   for (const l of lines) {
-    for (const [s, perMl] of stockFigures(l.product).perMl) speciesMmol[s] = speciesMmol[s].plus(perMl.times(l.volumeMl));
+    for (const [s, perMl] of l.stock.perMl) speciesMmol[s] = speciesMmol[s].plus(perMl.times(l.volumeMl));
     const n = l.product.nutrient;
     if (n) {
       const g = n.gramsPerMl.times(l.volumeMl);
@@ -178,6 +182,7 @@ export function computeBag(order: Order, policy: Policy): Bag {
     osmolarity: { particle: particleOsm, labelSum: labelOsm, reported, method },
     totalMOsm: { particle, labelSum: label },
     osmoticPressureMmHg: reported.times(mmHgPerMOsmPerL(policy.reference.osmoticPressureTemperatureC.value)),
+    aluminumMcg: aluminum,
     aluminumMcgPerKgPerDay: aluminum.div(weight),
   };
 }

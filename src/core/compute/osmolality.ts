@@ -68,7 +68,7 @@ export function osmoticCoefficientEstimate(bag: Bag): OsmolalityEstimate {
   let total = ZERO;
   for (const l of bag.lines) {
     if (!l.inBag || !l.particleMOsm.gt(ZERO)) continue;
-    const nutrientMOsm = l.product.nutrient ? stockFigures(l.product).nutrientMOsmPerMl.times(l.volumeMl) : ZERO;
+    const nutrientMOsm = l.product.nutrient ? l.stock.nutrientMOsmPerMl.times(l.volumeMl) : ZERO;
     const ionMOsm = nutrientMOsm.isZero() ? l.particleMOsm : l.particleMOsm.minus(nutrientMOsm);
     const ion = ionCoefficient(l.product);
     // A zero term, or φ = 1, would change no digit of the total: both are left out.

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_CATALOG } from '../../defaults.ts';
 import { product } from '../../../test/support/build.ts';
-import { holds, stockFigures } from './stock.ts';
+import { stockFigures } from './stock.ts';
 
 function stock(id: string) {
   const p = DEFAULT_CATALOG.byId.get(id);
@@ -13,8 +13,8 @@ describe('stockFigures', () => {
   it('potassium phosphates injection holds potassium and phosphate (label: 4.4 mEq K and 3 mmol P per mL), nothing else', () => {
     const p = stock('potassium-phosphates-3');
     expect([...stockFigures(p).holds].sort()).toEqual(['K', 'phosphate']);
-    expect(holds(p, 'K')).toBe(true);
-    expect(holds(p, 'Na')).toBe(false);
+    expect(stockFigures(p).holds.has('K')).toBe(true);
+    expect(stockFigures(p).holds.has('Na')).toBe(false);
     expect(stockFigures(p).perMl.map(([s, v]) => [s, v.toNumber()])).toEqual([['K', 4.4], ['phosphate', 3]]);
   });
 

@@ -44,8 +44,3 @@ export function stockFigures(product: Product): StockFigures {
   }
   return f;
 }
-
-/** True when a stock holds a species (its perMl for it is above zero). */
-export function holds(product: Product, species: SpeciesId): boolean {
-  return stockFigures(product).holds.has(species);
-}
