@@ -1,15 +1,33 @@
-import { D } from './decimal.ts';
+import { D, round } from './decimal.ts';
 
-const ZERO_TEXT = new D(0);
+// A value rounded to `places` decimals and below 10^(15 − places) in size has at most 15 significant
+// digits, which a JSON number holds exactly: its text is the decimal's own, with no number in between.
+// Larger values go through the number, so the text always shows what the report holds.
+const EXACT_LIMITS: D[] = [];
 
-/** A decimal as display text with fixed decimals (half-even); thousands are not grouped; never "-0.00". */
-export function fmt(value: D, places: number): string {
+function exactLimit(places: number): D {
+  let limit = EXACT_LIMITS[places];
+  if (!limit) {
+    limit = new D(`1e${15 - places}`);
+    EXACT_LIMITS[places] = limit;
+  }
+  return limit;
+}
+
+/** A value rounded half-even to `places` decimals, exactly as the report's number (round()) holds it. */
+function shown(value: D, places: number): D {
+  if (!value.isFinite()) round(value, places); // throws: a non-finite value never reaches the display
   const rounded = value.toDecimalPlaces(places);
-  return (rounded.isZero() ? ZERO_TEXT : rounded).toFixed(places);
+  const limit = exactLimit(places);
+  return rounded.abs().lt(limit) ? rounded : new D(round(value, places));
+}
+
+/** A decimal as display text with fixed decimals (half-even); thousands are not grouped. */
+export function fmt(value: D, places: number): string {
+  return shown(value, places).toFixed(places);
 }
 
 /** Like fmt, but drops trailing zeros (for amounts as the user typed them). */
 export function fmtTrim(value: D, maxPlaces: number): string {
-  const rounded = value.toDecimalPlaces(maxPlaces);
-  return rounded.isZero() ? '0' : rounded.toString();
+  return shown(value, maxPlaces).toString();
 }

@@ -1,6 +1,7 @@
 import { describe, expect, test } from 'vitest';
-import { parseOrder } from './order.ts';
-import { DEFAULT_CATALOG } from '../defaults.ts';
+import fc from 'fast-check';
+import { orderFileSchema, parseOrder, readPlainOrderFile } from './order.ts';
+import { DEFAULT_CATALOG, DEMO_ORDERS } from '../defaults.ts';
 
 const base = {
   id: 'O-1',
@@ -98,6 +99,56 @@ describe('parseOrder', () => {
     for (const input of [null, 42, 'order', [], { lines: null }, { lines: [null] }, { patient: [] }]) {
       expect(() => parseOrder(input, DEFAULT_CATALOG)).not.toThrow();
       expect(parseOrder(input, DEFAULT_CATALOG).ok).toBe(false);
+    }
+  });
+});
+
+describe('readPlainOrderFile (the schema-free reader of well-formed files)', () => {
+  // Mostly a good value, now and then a bad one, and once in a while anything at all (absent included).
+  const anything = fc.constantFrom<unknown>(undefined, null, true, 0, 'text', [], {});
+  const value = (good: unknown[], bad: unknown[]) => fc.oneof(
+    { arbitrary: fc.constantFrom(...good), weight: 24 }, { arbitrary: fc.constantFrom(...bad), weight: 2 }, { arbitrary: anything, weight: 1 },
+  );
+  const text = value(['O-1', ' P-7 ', 'x'], ['', ' ']);
+  const line = fc.record({
+    product: value(['dextrose-70', 'amino-acids-10', 'sterile-water'], ['']),
+    amount: value([0, 2.5, '12.5', ' 80 ', '1e3'], [-1, 100001, 'abc', '', Number.NaN, Infinity]),
+    unit: value(['g', 'mL', 'mEq/kg', 'mmol'], ['kg']),
+    species: value(['K', 'phosphate', 'Zz'], [1]), fill: value([true, false], ['yes']), note: text, extra: anything,
+  }, { requiredKeys: ['product'] });
+  const file = fc.record({
+    format: value(['osmocount-order'], ['other']), version: value([1], [2]),
+    id: text,
+    patient: fc.record({
+      id: text, name: text, location: text, weightKg: value([70, '3.2', ' 0.5 ', '1e2'], [0, 701, 'heavy']),
+      ageGroup: value(['adult', 'child', 'term-neonate', 'preterm-neonate'], ['elder']),
+    }, { requiredKeys: ['id', 'weightKg', 'ageGroup'] }),
+    route: value(['central', 'peripheral'], ['arterial']),
+    volumeMl: value([1000, '2500', 0.5], [0, 20001]), hours: value([24, '12.5', 1], [0.5, 73]),
+    lines: fc.oneof({ arbitrary: fc.array(line, { maxLength: 4 }), weight: 20 }, { arbitrary: anything, weight: 1 }),
+    ions: fc.oneof({ arbitrary: fc.constant(undefined), weight: 8 }, { arbitrary: fc.constant({ per: 'day', Na: 40 }), weight: 1 }),
+    note: text,
+  }, { requiredKeys: ['id', 'patient', 'route', 'lines'] });
+
+  test('whenever it reads a file, the schema reads it too, to the same output (law)', () => {
+    let read = 0;
+    fc.assert(fc.property(file, (input) => {
+      const plain = readPlainOrderFile(input);
+      if (plain === null) return;
+      read++;
+      const parsed = orderFileSchema.safeParse(input);
+      expect(parsed.success).toBe(true);
+      expect(plain).toEqual(parsed.data);
+    }), { numRuns: 10000 });
+    expect(read).toBeGreaterThan(1000);
+  });
+
+  test('reads every demo order without an ion block, as the schema does', () => {
+    for (const { key, file: demo } of DEMO_ORDERS) {
+      if ((demo as { ions?: unknown }).ions !== undefined) continue;
+      const plain = readPlainOrderFile(demo);
+      expect(plain, key).not.toBeNull();
+      expect(plain).toEqual(orderFileSchema.parse(demo));
     }
   });
 });

@@ -1,10 +1,9 @@
 import { z } from 'zod';
 import { D } from './decimal.ts';
 import { isSpeciesId, isPhosphateSpecies, isCharged, SPECIES, type SpeciesId } from './species.ts';
-import { decimal, optionalDecimal, parseWith } from './schema.ts';
+import { decimal, decimalReader, optionalDecimal, parseWith } from './schema.ts';
 import { NUTRIENT_ROLES, type Catalog, type Product } from './catalog.ts';
 import type { Problem, Result } from './problems.ts';
-import { readPlainOrder } from './plainOrder.ts';
 
 export const AGE_GROUPS = ['adult', 'child', 'term-neonate', 'preterm-neonate'] as const;
 /** The patient's age group: it selects the policy's limits. */
@@ -85,8 +84,87 @@ export const orderFileSchema = z.object({
   note: z.string().optional(),
 });
 export type OrderInput = z.input<typeof orderFileSchema>;
-/** An order file as the schema reads it (decimals read, ids trimmed), before it is bound to the catalog. */
-export type OrderFile = z.output<typeof orderFileSchema>;
+type OrderFile = z.output<typeof orderFileSchema>;
+
+// The plain reader below and orderFileSchema must agree: order.test.ts holds the reader to give the
+// schema's output whenever it reads a file. Change both together.
+const readWeight = decimalReader(LIMITS.weightKg);
+const readVolume = decimalReader(LIMITS.volumeMl);
+const readHours = decimalReader(LIMITS.hours);
+const readAmount = decimalReader(LIMITS.amount);
+
+function isRecord(value: unknown): value is Record<string, unknown> {
+  return typeof value === 'object' && value !== null && !Array.isArray(value);
+}
+const isOptionalString = (value: unknown): value is string | undefined => value === undefined || typeof value === 'string';
+const isOneOf = <T extends string>(values: readonly T[], value: unknown): value is T => (values as readonly unknown[]).includes(value);
+
+/** The trimmed text of a string field that must not be empty; null otherwise. */
+function nonEmptyTrimmed(value: unknown): string | null {
+  if (typeof value !== 'string') return null;
+  const text = value.trim();
+  return text.length > 0 ? text : null;
+}
+
+function readLine(input: unknown): LineInput | null {
+  if (!isRecord(input)) return null;
+  const { product, amount, unit, species, fill, note } = input;
+  if (typeof product !== 'string' || product.length === 0) return null;
+  if (!isOptionalString(species) || !isOptionalString(note) || (fill !== undefined && typeof fill !== 'boolean')) return null;
+  if (unit !== undefined && !isOneOf(LINE_UNITS, unit)) return null;
+  const line: LineInput = { product };
+  if (amount !== undefined) {
+    const d = readAmount(amount);
+    if (d === null) return null;
+    line.amount = d;
+  }
+  if (unit !== undefined) line.unit = unit;
+  if (species !== undefined) line.species = species;
+  if (fill !== undefined) line.fill = fill;
+  if (note !== undefined) line.note = note;
+  return line;
+}
+
+/**
+ * A well-formed order file read without the schema machinery: the same output as orderFileSchema, or
+ * null for anything else (an ion block, a missing or wrong field), which the schema then reads and
+ * reports. Most files in a batch are well formed, and this is the cheap way through them.
+ */
+export function readPlainOrderFile(input: unknown): OrderFile | null {
+  if (!isRecord(input) || !isRecord(input.patient) || !Array.isArray(input.lines)) return null;
+  const { format, version, patient, route, volumeMl, hours, ions, note } = input;
+  if ((format !== undefined && format !== 'osmocount-order') || (version !== undefined && version !== 1)) return null;
+  if (ions !== undefined || !isOptionalString(note) || !isOneOf(ROUTES, route)) return null;
+  const id = nonEmptyTrimmed(input.id);
+  const patientId = nonEmptyTrimmed(patient.id);
+  const weightKg = readWeight(patient.weightKg);
+  const { name, location, ageGroup } = patient;
+  if (id === null || patientId === null || weightKg === null || !isOneOf(AGE_GROUPS, ageGroup)) return null;
+  if (!isOptionalString(name) || !isOptionalString(location)) return null;
+  const lines: LineInput[] = [];
+  for (const l of input.lines as unknown[]) {
+    const line = readLine(l);
+    if (line === null) return null;
+    lines.push(line);
+  }
+  const out: OrderFile = { id, patient: { id: patientId, weightKg, ageGroup }, route, lines };
+  if (name !== undefined) out.patient.name = name;
+  if (location !== undefined) out.patient.location = location;
+  if (format !== undefined) out.format = format;
+  if (version !== undefined) out.version = version;
+  if (note !== undefined) out.note = note;
+  if (volumeMl !== undefined) {
+    const d = readVolume(volumeMl);
+    if (d === null) return null;
+    out.volumeMl = d;
+  }
+  if (hours !== undefined) {
+    const d = readHours(hours);
+    if (d === null) return null;
+    out.hours = d;
+  }
+  return out;
+}
 
 /** One line of a validated order: a product, and how much of it (or the fill). */
 export type OrderLine =
@@ -162,7 +240,7 @@ function bindLine(line: LineInput, index: number, catalog: Catalog, problems: Pr
  * Unknown products and species, mEq of phosphate and two fill lines are errors.
  */
 export function parseOrder(input: unknown, catalog: Catalog): Result<Order> {
-  const plain = readPlainOrder(input);
+  const plain = readPlainOrderFile(input);
   const parsed: Result<OrderFile> = plain ? { ok: true, value: plain } : parseWith(orderFileSchema, input);
   if (!parsed.ok) return parsed;
   const o = parsed.value;

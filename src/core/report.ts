@@ -1,7 +1,7 @@
 import { z } from 'zod';
-import { D, ZERO, round } from './decimal.ts';
+import { round } from './decimal.ts';
 import { SPECIES, SPECIES_IDS, isCharged, type SpeciesId } from './species.ts';
-import { lineShare, perLitre, mmHgPerMOsmPerL, type Bag } from './compute/bag.ts';
+import { lineShare, perLitre, mmHgPerMOsmPerL, type Bag, type BagLine } from './compute/bag.ts';
 import { ruleFor, SEVERITIES, type Policy } from './policy.ts';
 import type { Catalog } from './catalog.ts';
 import type { Finding, Verdict } from './findings.ts';
@@ -95,10 +95,60 @@ export const reportSchema = z.object({
 });
 export type Report = z.infer<typeof reportSchema>;
 
-function speciesMap(f: (s: SpeciesId) => D, places: number): Record<SpeciesId, number> {
-  const out = {} as Record<SpeciesId, number>;
-  for (const s of SPECIES_IDS) out[s] = round(f(s), places);
+type SpeciesTotals = Pick<Report['totals'], 'mmolPerL' | 'mEqPerL' | 'mmolPerDay' | 'mmolPerKgPerDay'>;
+
+/** Every species' totals, each rounded once; a species the bag does not hold is 0 throughout. */
+function speciesTotals(bag: Bag): SpeciesTotals {
+  const w = bag.order.patient.weightKg;
+  const empty = () => ({}) as Record<SpeciesId, number>;
+  const out: SpeciesTotals = { mmolPerL: empty(), mEqPerL: empty(), mmolPerDay: empty(), mmolPerKgPerDay: empty() };
+  for (const s of SPECIES_IDS) {
+    const mmol = bag.speciesMmol[s];
+    if (mmol.isZero()) {
+      out.mmolPerL[s] = 0; out.mEqPerL[s] = 0; out.mmolPerDay[s] = 0; out.mmolPerKgPerDay[s] = 0;
+      continue;
+    }
+    const perL = perLitre(mmol, bag.finalVolumeMl);
+    out.mmolPerL[s] = round(perL, 2);
+    // A monovalent ion's mEq is its mmol (× 1 changes no digit).
+    out.mEqPerL[s] = !isCharged(s) ? 0 : Math.abs(SPECIES[s].charge ?? 0) === 1 ? out.mmolPerL[s] : round(mmolToMEq(s, as(perL, 'mmol')), 2);
+    out.mmolPerDay[s] = round(mmol, 2);
+    out.mmolPerKgPerDay[s] = round(mmol.div(w), 3);
+  }
   return out;
+}
+
+/** One line of the report; a figure shared by two fields is rounded once. */
+function reportLine(bag: Bag, l: BagLine): Report['lines'][number] {
+  const line = l.line;
+  const w = bag.order.patient.weightKg;
+  const amount = line.kind === 'amount' ? round(line.amount, 4) : null;
+  const particleMOsm = round(l.particleMOsm, 2);
+  // A stock without a label value counts its particles in the label sum: the same decimal.
+  const labelMOsm = l.labelMOsm === l.particleMOsm ? particleMOsm : round(l.labelMOsm, 2);
+  // A line not ordered per kg delivers its amount per day as written: the same decimal.
+  const perDay = l.perDay
+    ? { amount: amount !== null && line.kind === 'amount' && l.perDay.amount === line.amount ? amount : round(l.perDay.amount, 4), unit: l.perDay.unit }
+    : null;
+  return {
+    index: line.index,
+    product: l.product.id,
+    name: l.product.name,
+    role: l.product.role,
+    strength: l.product.strength,
+    fill: line.kind === 'fill',
+    amount,
+    unit: line.kind === 'amount' ? line.unit : null,
+    species: line.kind === 'amount' ? line.species : null,
+    perDay,
+    perKgPerDay: l.perDay ? { amount: round(l.perDay.amount.div(w), 4), unit: `${l.perDay.unit}/kg` } : null,
+    volumeMl: round(l.volumeMl, 2),
+    mOsm: bag.osmolarity.method === 'particle' ? particleMOsm : labelMOsm,
+    particleMOsm,
+    labelMOsm,
+    sharePercent: round(lineShare(bag, l).times(100), 1),
+    kcal: round(l.kcal, 1),
+  };
 }
 
 /** Round the bag and its findings into the report, once, at this edge. */
@@ -110,8 +160,6 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
   const plasma = policy.reference.plasmaOsmolality;
   const temp = policy.reference.osmoticPressureTemperatureC.value;
   const reported = bag.osmolarity.reported;
-  const perL = {} as Record<SpeciesId, D>;
-  for (const s of SPECIES_IDS) perL[s] = perLitre(bag.speciesMmol[s], V);
   return {
     format: 'osmocount-report',
     version: 1,
@@ -123,29 +171,7 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
     volumeMl: round(V, 2),
     hours: round(bag.hours, 2),
     rateMlPerHour: round(bag.rateMlPerHour, 2),
-    lines: bag.lines.map((l) => {
-      const line = l.line;
-      const method = bag.osmolarity.method;
-      return {
-        index: line.index,
-        product: l.product.id,
-        name: l.product.name,
-        role: l.product.role,
-        strength: l.product.strength,
-        fill: line.kind === 'fill',
-        amount: line.kind === 'amount' ? round(line.amount, 4) : null,
-        unit: line.kind === 'amount' ? line.unit : null,
-        species: line.kind === 'amount' ? line.species : null,
-        perDay: l.perDay ? { amount: round(l.perDay.amount, 4), unit: l.perDay.unit } : null,
-        perKgPerDay: l.perDay ? { amount: round(l.perDay.amount.div(w), 4), unit: `${l.perDay.unit}/kg` } : null,
-        volumeMl: round(l.volumeMl, 2),
-        mOsm: round(method === 'particle' ? l.particleMOsm : l.labelMOsm, 2),
-        particleMOsm: round(l.particleMOsm, 2),
-        labelMOsm: round(l.labelMOsm, 2),
-        sharePercent: round(lineShare(bag, l).times(100), 1),
-        kcal: round(l.kcal, 1),
-      };
-    }),
+    lines: bag.lines.map((l) => reportLine(bag, l)),
     osmolarity: {
       particle: round(bag.osmolarity.particle, 1),
       labelSum: round(bag.osmolarity.labelSum, 1),
@@ -156,10 +182,7 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
       peripheralLimit: limit ? round(limit, 1) : null,
     },
     totals: {
-      mmolPerL: speciesMap((s) => perL[s], 2),
-      mEqPerL: speciesMap((s) => (isCharged(s) ? mmolToMEq(s, as(perL[s], 'mmol')) : ZERO), 2),
-      mmolPerDay: speciesMap((s) => bag.speciesMmol[s], 2),
-      mmolPerKgPerDay: speciesMap((s) => bag.speciesMmol[s].div(w), 3),
+      ...speciesTotals(bag),
       dextrosePercent: round(bag.percent.dextrose, 2),
       aminoAcidPercent: round(bag.percent.aminoAcids, 2),
       lipidPercent: round(bag.percent.lipid, 2),

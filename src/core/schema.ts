@@ -13,14 +13,30 @@ function describe(b: Bound): string {
 }
 
 /**
+ * A reader of one bounded decimal field: the decimal, or null when the value is not a finite number
+ * or is out of range. The bounds are made into decimals once, here, not at every comparison.
+ */
+export function decimalReader(bound: Bound = {}): (value: unknown) => D | null {
+  const gt = bound.gt === undefined ? null : new D(bound.gt);
+  const min = bound.min === undefined ? null : new D(bound.min);
+  const max = bound.max === undefined ? null : new D(bound.max);
+  return (value) => {
+    const d = toDecimal(value);
+    if (d === null || (gt !== null && d.lte(gt)) || (min !== null && d.lt(min)) || (max !== null && d.gt(max))) return null;
+    return d;
+  };
+}
+
+/**
  * A JSON number or decimal string, read straight into a decimal (never through float arithmetic).
  * One clear message when it is missing, not a number, or out of range.
  */
 export function decimal(bound: Bound = {}) {
   const message = describe(bound);
+  const read = decimalReader(bound);
   return z.unknown().transform((value, ctx): D => {
-    const d = toDecimal(value);
-    if (d === null || (bound.gt !== undefined && d.lte(bound.gt)) || (bound.min !== undefined && d.lt(bound.min)) || (bound.max !== undefined && d.gt(bound.max))) {
+    const d = read(value);
+    if (d === null) {
       ctx.addIssue({ code: 'custom', message: value === undefined ? `is required (${message})` : message });
       return z.NEVER;
     }

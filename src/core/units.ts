@@ -19,12 +19,14 @@ export function as<U extends string>(value: D, _unit: U): Quantity<U> {
 /** Error for a conversion that has no meaning (mEq of a species without a defined charge). */
 export class UnitError extends Error {}
 
+// |charge| of every charged species, as decimals made once.
+const VALENCES: Partial<Record<SpeciesId, D>> = {};
+for (const s of Object.values(SPECIES)) if (s.charge !== null && s.charge !== 0) VALENCES[s.id] = new D(Math.abs(s.charge));
+
 function valence(species: SpeciesId): D {
-  const charge = SPECIES[species].charge;
-  if (charge === null || charge === 0) {
-    throw new UnitError(`${SPECIES[species].label} has no defined charge: order it in mmol, not mEq`);
-  }
-  return new D(Math.abs(charge));
+  const v = VALENCES[species];
+  if (!v) throw new UnitError(`${SPECIES[species].label} has no defined charge: order it in mmol, not mEq`);
+  return v;
 }
 
 /** mEq → mmol (divide by |charge|). Phosphate species have no mEq. Example: 10 mEq Ca → 5 mmol. */

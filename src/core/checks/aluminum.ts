@@ -1,4 +1,4 @@
-import { sum } from '../decimal.ts';
+import { ZERO } from '../decimal.ts';
 import { fmt } from '../format.ts';
 import { ruleFor } from '../policy.ts';
 import { fromRule, type Check } from '../findings.ts';
@@ -16,7 +16,7 @@ const TOP = 3;
 export const aluminum: Check = (bag, policy) => {
   const rule = ruleFor(policy, 'aluminum', bag.order.patient.ageGroup);
   if (!rule?.max || bag.finalVolumeMl.isZero()) return [];
-  const inBag = bag.lines.filter((l) => l.volumeMl.gt(0));
+  const inBag = bag.lines.filter((l) => l.inBag);
   const missing = inBag.filter((l) => l.product.aluminumMcgPerL === null);
   const known = inBag.filter((l) => l.product.aluminumMcgPerL !== null);
   if (known.length === 0) {
@@ -27,8 +27,8 @@ export const aluminum: Check = (bag, policy) => {
     })];
   }
   const value = bag.aluminumMcgPerKgPerDay;
-  const total = sum(bag.lines.map((l) => l.aluminumMcg));
-  const top = [...known].filter((l) => l.aluminumMcg.gt(0)).sort((a, b) => b.aluminumMcg.cmp(a.aluminumMcg)).slice(0, TOP);
+  const total = bag.aluminumMcg;
+  const top = known.filter((l) => l.aluminumMcg.gt(ZERO)).sort((a, b) => b.aluminumMcg.cmp(a.aluminumMcg)).slice(0, TOP);
   const topText = top.length === 0
     ? ''
     : ` Largest contributors: ${top.map((l) => `${l.product.name} ${fmt(l.aluminumMcg, 1)} µg (${fmt(l.aluminumMcg.div(total).times(100), 0)}%)`).join('; ')}.`;

@@ -1,4 +1,4 @@
-import { ZERO, type D } from '../decimal.ts';
+import type { D } from '../decimal.ts';
 import { fmt } from '../format.ts';
 import { ruleFor, type Policy } from '../policy.ts';
 import { perLitre, type Bag } from '../compute/bag.ts';
@@ -32,7 +32,7 @@ export function calciumPhosphateLevels(bag: Bag): CalciumPhosphateLevels {
 const SCREENS_ONLY = 'These are screens only: the solubility curve of the amino-acid product in this bag, at its amino-acid %, temperature and hang time, decides.';
 
 function linesWith(bag: Bag, test: (l: Bag['lines'][number]) => boolean): number[] {
-  return bag.lines.filter((l) => l.volumeMl.gt(0) && test(l)).map((l) => l.line.index);
+  return bag.lines.filter((l) => l.inBag && test(l)).map((l) => l.line.index);
 }
 
 /**
@@ -51,9 +51,9 @@ export const calciumPhosphate: Check = (bag, policy) => {
   if (!lv.calciumMmolPerL.gt(0) || !(pInorganic.gt(0) || pOrganic.gt(0))) return [];
   const age = bag.order.patient.ageGroup;
   const route = bag.order.route;
-  const caLines = linesWith(bag, (l) => (l.product.perMl.Ca ?? ZERO).gt(0));
-  const pLines = linesWith(bag, (l) => (l.product.perMl.phosphate ?? ZERO).gt(0));
-  const organicLines = linesWith(bag, (l) => (l.product.perMl.glycerophosphate ?? ZERO).gt(0));
+  const caLines = linesWith(bag, (l) => l.stock.holds.has('Ca'));
+  const pLines = linesWith(bag, (l) => l.stock.holds.has('phosphate'));
+  const organicLines = linesWith(bag, (l) => l.stock.holds.has('glycerophosphate'));
   const curve = curveScreen(bag, policy, lv, [...caLines, ...pLines]);
   const curveNote = curve.note ? ` ${curve.note}` : '';
   const organicNote = pOrganic.gt(0) ? ` Organic phosphate (glycerophosphate) ${fmt(pOrganic, 2)} mmol/L is not counted in the inorganic term.` : '';
@@ -82,7 +82,7 @@ export const calciumPhosphate: Check = (bag, policy) => {
       });
       out.push(over ? f : asInfo(f));
     }
-    const chlorideLines = linesWith(bag, (l) => (l.product.perMl.Ca ?? ZERO).gt(0) && (l.product.perMl.Cl ?? ZERO).gt(0));
+    const chlorideLines = linesWith(bag, (l) => l.stock.holds.has('Ca') && l.stock.holds.has('Cl'));
     const chlorideRule = ruleFor(policy, 'calcium-chloride-phosphate', age);
     if (chlorideRule && chlorideLines.length > 0) {
       out.push(fromRule('calcium-phosphate', chlorideRule, {
@@ -125,7 +125,7 @@ export const calciumPhosphate: Check = (bag, policy) => {
 function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, lines: number[]): { finding: Finding | null; note: string | null } {
   const rule = ruleFor(policy, 'calcium-phosphate-curve', bag.order.patient.ageGroup);
   if (!rule || !lv.inorganicPhosphateMmolPerL.gt(0)) return { finding: null, note: null };
-  const aaProducts = [...new Map(bag.lines.filter((l) => l.product.role === 'amino-acids' && l.volumeMl.gt(0)).map((l) => [l.product.id, l.product])).values()];
+  const aaProducts = [...new Map(bag.lines.filter((l) => l.product.role === 'amino-acids' && l.inBag).map((l) => [l.product.id, l.product])).values()];
   const only = aaProducts[0];
   if (aaProducts.length === 0) return { finding: null, note: 'The bag has no amino acids: published curves do not cover it.' };
   if (aaProducts.length > 1 || !only) return { finding: null, note: 'The bag mixes amino-acid products: no single product curve applies.' };

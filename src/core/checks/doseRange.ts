@@ -1,7 +1,7 @@
 import { D, ZERO } from '../decimal.ts';
 import { fmt } from '../format.ts';
 import { doseRangeFor, DOSE_NUTRIENTS, type DoseNutrient, type Rule } from '../policy.ts';
-import type { Bag } from '../compute/bag.ts';
+import type { Bag, BagLine } from '../compute/bag.ts';
 import type { SpeciesId } from '../species.ts';
 import { as, mmolToMEq } from '../units.ts';
 import { fromRule, type Check, type Finding } from '../findings.ts';
@@ -43,20 +43,23 @@ export function doseIn(bag: Bag, nutrient: DoseNutrient, unit: string): D | null
   }
 }
 
+function contributes(l: BagLine, nutrient: DoseNutrient): boolean {
+  const ion = ION[nutrient];
+  if (ion) return l.stock.holds.has(ion);
+  switch (nutrient) {
+    case 'protein': return l.product.role === 'amino-acids';
+    case 'lipid': case 'lipidRate': return l.product.role === 'lipid';
+    case 'phosphate': return l.stock.holds.has('phosphate') || l.stock.holds.has('glycerophosphate');
+    case 'energy': return l.kcal.gt(ZERO);
+    case 'npcToN': return l.product.role === 'amino-acids' || l.product.role === 'dextrose' || l.product.role === 'lipid';
+    default: return false;
+  }
+}
+
 function contributingLines(bag: Bag, nutrient: DoseNutrient): number[] {
-  const has = (l: Bag['lines'][number]): boolean => {
-    const ion = ION[nutrient];
-    if (ion) return (l.product.perMl[ion] ?? ZERO).gt(0);
-    switch (nutrient) {
-      case 'protein': return l.product.role === 'amino-acids';
-      case 'lipid': case 'lipidRate': return l.product.role === 'lipid';
-      case 'phosphate': return (l.product.perMl.phosphate ?? ZERO).gt(0) || (l.product.perMl.glycerophosphate ?? ZERO).gt(0);
-      case 'energy': return l.kcal.gt(0);
-      case 'npcToN': return l.product.role === 'amino-acids' || l.product.role === 'dextrose' || l.product.role === 'lipid';
-      default: return false;
-    }
-  };
-  return bag.lines.filter((l) => l.volumeMl.gt(0) && has(l)).map((l) => l.line.index);
+  const out: number[] = [];
+  for (const l of bag.lines) if (l.inBag && contributes(l, nutrient)) out.push(l.line.index);
+  return out;
 }
 
 function rangeFinding(bag: Bag, nutrient: DoseNutrient, rule: Rule): Finding | null {

@@ -25,7 +25,7 @@ export const gir: Check = (bag, policy) => {
       : `GIR ${fmt(value, 2)} mg/kg/min is within the range for ${who}, ${range}.`;
   const f = fromRule('gir', rule, {
     value, limit: reportedLimit(rule, crossed), decimals: 2, message,
-    lines: bag.lines.filter((l) => l.product.role === 'dextrose' && l.volumeMl.gt(0)).map((l) => l.line.index),
+    lines: bag.lines.filter((l) => l.product.role === 'dextrose' && l.inBag).map((l) => l.line.index),
     fields: ['hours'],
   });
   return [crossed ? f : asInfo(f)];

@@ -25,3 +25,9 @@ export const CHECKS: readonly Check[] = [
   doseRange,
   aluminum,
 ];
+
+/**
+ * The checks that read the order's route. The others depend on the bag alone, which the route does not
+ * change, so the solver's route re-check keeps their findings (a test holds every other check to that).
+ */
+export const ROUTE_CHECKS: ReadonlySet<Check> = new Set([osmolarityPeripheral, dextrosePeripheral, potassiumPeripheral, calciumPhosphate]);

@@ -27,12 +27,24 @@ export function outside(value: D, rule: Pick<Rule, 'min' | 'max'>): 'min' | 'max
   return null;
 }
 
-/** The rule's range as text, with the numbers as the policy writes them: "1–2 mmol/kg/day", "≤ 5 mg/kg/min". */
-export function rangeText(rule: Pick<Rule, 'min' | 'max' | 'unit'>): string {
+function rangeTextOf(rule: Pick<Rule, 'min' | 'max' | 'unit'>): string {
   if (rule.min && rule.max) return `${rule.min.toString()}–${rule.max.toString()} ${rule.unit}`;
   if (rule.max) return `≤ ${rule.max.toString()} ${rule.unit}`;
   if (rule.min) return `≥ ${rule.min.toString()} ${rule.unit}`;
   return `no limit set (${rule.unit})`;
+}
+
+// Each rule's range text, written once (a policy's rules are immutable values).
+const rangeTexts = new WeakMap<Pick<Rule, 'min' | 'max' | 'unit'>, string>();
+
+/** The rule's range as text, with the numbers as the policy writes them: "1–2 mmol/kg/day", "≤ 5 mg/kg/min". */
+export function rangeText(rule: Pick<Rule, 'min' | 'max' | 'unit'>): string {
+  let text = rangeTexts.get(rule);
+  if (text === undefined) {
+    text = rangeTextOf(rule);
+    rangeTexts.set(rule, text);
+  }
+  return text;
 }
 
 /** The bound a finding reports: the one crossed, else the upper bound, else the lower one. */

@@ -6,7 +6,7 @@ export const missingLabelOsmolarity: Check = (bag, policy) => {
   const rule = ruleFor(policy, 'missing-label-osmolarity', bag.order.patient.ageGroup);
   if (!rule) return [];
   return bag.lines
-    .filter((l) => l.labelMissing && l.volumeMl.gt(0))
+    .filter((l) => l.labelMissing && l.inBag)
     .map((l) => fromRule('missing-label-osmolarity', rule, {
       value: null, limit: null, decimals: 0,
       message: `${l.product.name} has no labelled osmolarity in the catalog: the label sum counts its ideal particles instead. Add the label value to the catalog.`,

@@ -20,7 +20,7 @@ export const potassiumPeripheral: Check = (bag, policy) => {
     message: over
       ? `Potassium ${fmt(k, 1)} mmol/L is over the peripheral limit of ${rule.max.toString()} mmol/L for ${AGE_LABEL[bag.order.patient.ageGroup]}: concentrated potassium irritates a peripheral vein. Give it centrally, raise the volume or lower the potassium. ${DEFER}`
       : `Potassium ${fmt(k, 1)} mmol/L is within the peripheral limit of ${rule.max.toString()} mmol/L.`,
-    lines: bag.lines.filter((l) => l.volumeMl.gt(0) && (l.product.perMl.K?.gt(0) ?? false)).map((l) => l.line.index),
+    lines: bag.lines.filter((l) => l.inBag && l.stock.holds.has('K')).map((l) => l.line.index),
     fields: ['route', 'volumeMl'],
   });
   return [over ? f : asInfo(f)];

@@ -59,14 +59,14 @@ function minimumFinding(rule: Rule | null, value: D, what: string, nutrient: str
 export const tnaStability: Check = (bag, policy) => {
   if (!bag.grams.lipid.gt(0) || bag.finalVolumeMl.isZero()) return [];
   const age = bag.order.patient.ageGroup;
-  const linesOf = (role: string) => bag.lines.filter((l) => l.product.role === role && l.volumeMl.gt(0)).map((l) => l.line.index);
+  const linesOf = (role: string) => bag.lines.filter((l) => l.product.role === role && l.inBag).map((l) => l.line.index);
   const out: (Finding | null)[] = [
     minimumFinding(ruleFor(policy, 'tna-amino-acids-min', age), bag.percent.aminoAcids, 'amino acids', 'amino-acids', linesOf('amino-acids')),
     minimumFinding(ruleFor(policy, 'tna-dextrose-min', age), dextroseMonohydratePercent(bag), 'dextrose (as monohydrate)', 'dextrose', linesOf('dextrose')),
     minimumFinding(ruleFor(policy, 'tna-lipid-min', age), bag.percent.lipid, 'lipid', 'lipid', linesOf('lipid')),
   ];
   const loads = cationLoads(bag);
-  const divalentLines = bag.lines.filter((l) => l.volumeMl.gt(0) && ((l.product.perMl.Ca ?? ZERO).gt(0) || (l.product.perMl.Mg ?? ZERO).gt(0))).map((l) => l.line.index);
+  const divalentLines = bag.lines.filter((l) => l.inBag && (l.stock.holds.has('Ca') || l.stock.holds.has('Mg'))).map((l) => l.line.index);
   const divalentRule = ruleFor(policy, 'tna-divalent', age);
   if (divalentRule?.max) {
     const crossed = outside(loads.divalent, divalentRule);
@@ -88,7 +88,7 @@ export const tnaStability: Check = (bag, policy) => {
     const f = fromRule('tna-stability', canRule, {
       value: can, limit: canRule.max, decimals: 1, screen: 'critical-aggregation-number',
       message: `Critical aggregation number (information): ${formula}${threshold}.${crossed ? ` It is over the threshold. ${DEFER}` : ''}`,
-      lines: bag.lines.filter((l) => l.volumeMl.gt(0) && CATIONS.some((s) => (l.product.perMl[s] ?? ZERO).gt(0))).map((l) => l.line.index),
+      lines: bag.lines.filter((l) => l.inBag && CATIONS.some((s) => l.stock.holds.has(s))).map((l) => l.line.index),
     });
     out.push(crossed ? f : asInfo(f));
   }

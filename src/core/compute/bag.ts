@@ -4,12 +4,17 @@ import type { Order, OrderLine, BaseUnit } from '../order.ts';
 import type { Policy } from '../policy.ts';
 import type { Product, Role } from '../catalog.ts';
 import { lineVolumeMl, perDayAmount } from './volumes.ts';
+import { stockFigures, type StockFigures } from './stock.ts';
 
 /** One line of the computed bag: how much stock goes in and what it brings. */
 export interface BagLine {
   line: OrderLine;
   product: Product;
+  /** The stock's per-mL figures and the species it holds. */
+  stock: StockFigures;
   volumeMl: D;
+  /** True when the line puts volume in the bag (above zero): the lines a finding names are among these. */
+  inBag: boolean;
   /** The ordered amount per day in the line's base unit (null for the fill line). */
   perDay: { amount: D; unit: BaseUnit } | null;
   /** Ideal particles this line adds, mOsm (volume × the stock's particles per mL). */
@@ -56,6 +61,8 @@ export interface Bag {
   totalMOsm: { particle: D; labelSum: D };
   /** Ideal osmotic pressure at the policy's temperature, mmHg (van 't Hoff). */
   osmoticPressureMmHg: D;
+  /** µg of aluminum in the whole bag (Σ each stock's labelled maximum × its volume). */
+  aluminumMcg: D;
   aluminumMcgPerKgPerDay: D;
 }
 
@@ -83,12 +90,6 @@ function energySource(role: Role): EnergySource {
   }
 }
 
-function lineKcal(product: Product, volumeMl: D): D {
-  if (product.kcalPerMl) return product.kcalPerMl.times(volumeMl);
-  if (product.nutrient?.kcalPerGram) return product.nutrient.kcalPerGram.times(product.nutrient.gramsPerMl).times(volumeMl);
-  return ZERO;
-}
-
 /** x per litre of the bag (x ÷ V × 1000); zero for an empty bag. */
 export function perLitre(x: D, volumeMl: D): D {
   return volumeMl.isZero() ? ZERO : x.div(volumeMl).times(THOUSAND);
@@ -102,11 +103,12 @@ function makeLine(line: OrderLine, volumeMl: D, perDay: BagLine['perDay']): BagL
   const product = line.product;
   const particleMOsm = product.particlePerMl.times(volumeMl);
   const labelMissing = product.mOsmPerMl === null && product.role !== 'water';
+  const stock = stockFigures(product);
   return {
-    line, product, volumeMl, perDay, particleMOsm,
+    line, product, stock, volumeMl, inBag: volumeMl.gt(ZERO), perDay, particleMOsm,
     labelMOsm: product.mOsmPerMl ? product.mOsmPerMl.times(volumeMl) : particleMOsm,
     labelMissing,
-    kcal: lineKcal(product, volumeMl),
+    kcal: stock.kcalPerMl ? stock.kcalPerMl.times(volumeMl) : ZERO,
     aluminumMcg: product.aluminumMcgPerL ? product.aluminumMcgPerL.times(volumeMl).div(THOUSAND) : ZERO,
   };
 }
@@ -121,7 +123,8 @@ export function computeBag(order: Order, policy: Policy): Bag {
   let fillLine: OrderLine | null = null;
   for (const line of order.lines) {
     if (line.kind === 'fill') { fillLine = line; continue; }
-    amountLines.push(makeLine(line, lineVolumeMl(line, weight), perDayAmount(line, weight)));
+    const perDay = perDayAmount(line, weight);
+    amountLines.push(makeLine(line, lineVolumeMl(line, weight, perDay), perDay));
   }
   const addedVolumeMl = sum(amountLines.map((l) => l.volumeMl));
   let finalVolumeMl = addedVolumeMl;
@@ -140,10 +143,7 @@ export function computeBag(order: Order, policy: Policy): Bag {
   let label = ZERO;
   let aluminum = ZERO;
   for (const l of lines) {
-    for (const s of Object.keys(l.product.perMl) as SpeciesId[]) {
-      const perMl = l.product.perMl[s];
-      if (perMl) speciesMmol[s] = speciesMmol[s].plus(perMl.times(l.volumeMl));
-    }
+    for (const [s, perMl] of l.stock.perMl) speciesMmol[s] = speciesMmol[s].plus(perMl.times(l.volumeMl));
     const n = l.product.nutrient;
     if (n) {
       const g = n.gramsPerMl.times(l.volumeMl);
@@ -182,6 +182,7 @@ export function computeBag(order: Order, policy: Policy): Bag {
     osmolarity: { particle: particleOsm, labelSum: labelOsm, reported, method },
     totalMOsm: { particle, labelSum: label },
     osmoticPressureMmHg: reported.times(mmHgPerMOsmPerL(policy.reference.osmoticPressureTemperatureC.value)),
+    aluminumMcg: aluminum,
     aluminumMcgPerKgPerDay: aluminum.div(weight),
   };
 }

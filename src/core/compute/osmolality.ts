@@ -1,7 +1,9 @@
 import { z } from 'zod';
-import { D, ZERO, ONE, sum, round } from '../decimal.ts';
+import { D, ZERO, sum, round } from '../decimal.ts';
 import { SPECIES, type SpeciesId } from '../species.ts';
-import { perLitre, type Bag, type BagLine } from './bag.ts';
+import { perLitre, type Bag } from './bag.ts';
+import { stockFigures } from './stock.ts';
+import type { Product } from '../catalog.ts';
 
 /** One published way of estimating the osmolality a bag would measure, with how far to trust it. */
 export interface OsmolalityEstimate {
@@ -42,10 +44,18 @@ const GLUCOSE_PHI = new D('1.01');
 // Glucose anhydrous 180.16 g/mol, monohydrate 198.17 g/mol (IUPAC atomic weights).
 const ANHYDROUS_PER_MONOHYDRATE = new D('180.16').div('198.17');
 
+// Each stock's coefficient, found once per product (products are immutable).
+const coefficients = new WeakMap<Product, Coefficient | null>();
+
 /** The φ for a stock's dissolved ions: the table's salt whose species match exactly, else null. */
-function ionCoefficient(line: BagLine): Coefficient | null {
-  const present = (Object.keys(line.product.perMl) as SpeciesId[]).filter((s) => line.product.perMl[s]?.gt(0)).sort();
-  return COEFFICIENTS.find((c) => c.species.length === present.length && [...c.species].sort().every((s, i) => s === present[i])) ?? null;
+function ionCoefficient(product: Product): Coefficient | null {
+  let found = coefficients.get(product);
+  if (found === undefined) {
+    const present = [...stockFigures(product).holds].sort();
+    found = COEFFICIENTS.find((c) => c.species.length === present.length && [...c.species].sort().every((s, i) => s === present[i])) ?? null;
+    coefficients.set(product, found);
+  }
+  return found;
 }
 
 /**
@@ -57,15 +67,15 @@ export function osmoticCoefficientEstimate(bag: Bag): OsmolalityEstimate {
   const uncounted: string[] = [];
   let total = ZERO;
   for (const l of bag.lines) {
-    if (!l.volumeMl.gt(0) || !l.particleMOsm.gt(0)) continue;
-    const n = l.product.nutrient;
-    const nutrientMOsm = n ? n.gramsPerMl.times(n.mOsmPerGram).times(l.volumeMl) : ZERO;
-    const ionMOsm = l.particleMOsm.minus(nutrientMOsm);
-    const nutrientPhi = l.product.role === 'dextrose' ? GLUCOSE_PHI : ONE;
-    const ion = ionCoefficient(l);
-    total = total.plus(nutrientMOsm.times(nutrientPhi)).plus(ionMOsm.times(ion?.phi ?? ONE));
-    const idealNutrient = nutrientMOsm.gt(0) && l.product.role !== 'dextrose';
-    if (idealNutrient || (ionMOsm.gt(0) && !ion)) uncounted.push(l.product.name);
+    if (!l.inBag || !l.particleMOsm.gt(ZERO)) continue;
+    const nutrientMOsm = l.product.nutrient ? l.stock.nutrientMOsmPerMl.times(l.volumeMl) : ZERO;
+    const ionMOsm = nutrientMOsm.isZero() ? l.particleMOsm : l.particleMOsm.minus(nutrientMOsm);
+    const ion = ionCoefficient(l.product);
+    // A zero term, or φ = 1, would change no digit of the total: both are left out.
+    if (!nutrientMOsm.isZero()) total = total.plus(l.product.role === 'dextrose' ? nutrientMOsm.times(GLUCOSE_PHI) : nutrientMOsm);
+    if (!ionMOsm.isZero()) total = total.plus(ion ? ionMOsm.times(ion.phi) : ionMOsm);
+    const idealNutrient = nutrientMOsm.gt(ZERO) && l.product.role !== 'dextrose';
+    if (idealNutrient || (ionMOsm.gt(ZERO) && !ion)) uncounted.push(l.product.name);
   }
   const notes = ['φ values are for plasma-like concentrations; PN is far more concentrated, so this is an approximation.'];
   if (uncounted.length > 0) notes.push(`No coefficient in the table, counted as ideal (φ = 1): ${uncounted.join('; ')}.`);

@@ -8,11 +8,11 @@ export function perDayAmount(line: Extract<OrderLine, { kind: 'amount' }>, weigh
 }
 
 /**
- * Stock volume (mL) that delivers a line's amount.
+ * Stock volume (mL) that delivers a line's amount (`perDay`: its per-day amount, when already worked out).
  * Example: 150 g from dextrose 70% (0.7 g/mL) → 214.2857… mL; 15 mmol phosphate at 3 mmol/mL → 5 mL.
  */
-export function lineVolumeMl(line: Extract<OrderLine, { kind: 'amount' }>, weightKg: D): D {
-  const { amount, unit } = perDayAmount(line, weightKg);
+export function lineVolumeMl(line: Extract<OrderLine, { kind: 'amount' }>, weightKg: D, perDay = perDayAmount(line, weightKg)): D {
+  const { amount, unit } = perDay;
   const product = line.product;
   switch (unit) {
     case 'mL':

@@ -15,7 +15,7 @@ export function peripheralRouteSuggestion(current: Checked, policy: Policy, eval
   if (!limit) return { kind: 'peripheral-route', status: 'unavailable', message: 'The policy sets no peripheral osmolarity limit for this age group.', notes: [] };
   // The bag does not depend on the route: over the limit now means over it peripherally, with no re-check.
   const over = current.bag.osmolarity.reported.gt(limit);
-  const next = over ? null : evaluate({ ...order, route: 'peripheral' });
+  const next = over ? null : evaluate({ ...order, route: 'peripheral' }, 'route');
   const osm = current.bag.osmolarity.reported;
   if (next === null || next.findings.some((f) => f.code === 'osmolarity-peripheral')) {
     return {

@@ -63,5 +63,9 @@ export interface Checked {
   verdict: Verdict;
 }
 
-/** Re-checks a modified order through every check (the engine's evaluateOrder, without suggestions). */
-export type Evaluate = (order: Order) => Checked;
+/**
+ * Re-checks a modified order through every check (the engine's evaluateOrder, without suggestions).
+ * `change: 'route'` says the order differs from the evaluated one in its route alone: the engine then
+ * keeps the bag (it does not depend on the route) and the findings of the checks that do not read it.
+ */
+export type Evaluate = (order: Order, change?: 'route') => Checked;

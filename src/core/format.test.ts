@@ -1,0 +1,35 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { D, round } from './decimal.ts';
+import { fmt, fmtTrim } from './format.ts';
+
+describe('fmt and fmtTrim', () => {
+  it('round half to even (IEEE 754 roundTiesToEven): 2.345 → 2.34, 2.355 → 2.36, 0.5 → 0, 1.5 → 2', () => {
+    expect(fmt(new D('2.345'), 2)).toBe('2.34');
+    expect(fmt(new D('2.355'), 2)).toBe('2.36');
+    expect(fmt(new D('0.5'), 0)).toBe('0');
+    expect(fmt(new D('1.5'), 0)).toBe('2');
+    expect(fmtTrim(new D('2.3450'), 2)).toBe('2.34');
+  });
+
+  it('never shows a negative zero', () => {
+    expect(fmt(new D('-0.001'), 2)).toBe('0.00');
+    expect(fmtTrim(new D('-0.0004'), 3)).toBe('0');
+  });
+
+  it('refuses a non-finite value, as the report does', () => {
+    expect(() => fmt(new D(Infinity), 1)).toThrow();
+    expect(() => fmtTrim(new D(NaN), 1)).toThrow();
+  });
+
+  it('shows exactly the number the report holds, at any size (law)', () => {
+    const decimalText = fc.tuple(fc.boolean(), fc.stringMatching(/^[1-9][0-9]{0,29}$/), fc.integer({ min: -25, max: 25 }))
+      .map(([negative, digits, exponent]) => `${negative ? '-' : ''}${digits}e${exponent}`);
+    fc.assert(fc.property(decimalText, fc.integer({ min: 0, max: 4 }), (text, places) => {
+      const value = new D(text);
+      const reported = round(value, places);
+      expect(fmt(value, places)).toBe(new D(reported).toFixed(places));
+      expect(fmtTrim(value, places)).toBe(new D(reported).toString());
+    }), { numRuns: 2000 });
+  });
+});
