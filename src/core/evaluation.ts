@@ -19,21 +19,46 @@ export interface Evaluation {
   suggestions: Suggestion[];
 }
 
+/**
+ * An evaluation whose report is built once, when first read. A class, not an object literal with a
+ * getter: a literal's getter is a new closure each time, which gives every evaluation its own hidden
+ * class — every reader of evaluations then slows down, and a batch spends its time collecting garbage.
+ */
+class LazyEvaluation implements Evaluation {
+  readonly order: Order;
+  readonly bag: Bag;
+  readonly findings: Finding[];
+  readonly verdict: Verdict;
+  readonly suggestions: Suggestion[];
+  #report: Report | null = null;
+  readonly #catalog: Catalog;
+  readonly #policy: Policy;
+
+  constructor(parts: { order: Order; bag: Bag; findings: Finding[]; verdict: Verdict; suggestions: Suggestion[] }, catalog: Catalog, policy: Policy) {
+    this.order = parts.order;
+    this.bag = parts.bag;
+    this.findings = parts.findings;
+    this.verdict = parts.verdict;
+    this.suggestions = parts.suggestions;
+    this.#catalog = catalog;
+    this.#policy = policy;
+  }
+
+  get report(): Report {
+    if (this.#report === null) {
+      const report = toReport(this.bag, this.findings, this.verdict, this.#catalog, this.#policy);
+      if (this.suggestions.length > 0) report.suggestions = this.suggestions.map(suggestionReport);
+      this.#report = report;
+    }
+    return this.#report;
+  }
+}
+
 /** Assemble an evaluation whose report is built once, when first read. */
 export function makeEvaluation(
   parts: { order: Order; bag: Bag; findings: Finding[]; verdict: Verdict; suggestions: Suggestion[] },
   catalog: Catalog,
   policy: Policy,
 ): Evaluation {
-  let report: Report | null = null;
-  return {
-    ...parts,
-    get report(): Report {
-      if (report === null) {
-        report = toReport(parts.bag, parts.findings, parts.verdict, catalog, policy);
-        if (parts.suggestions.length > 0) report.suggestions = parts.suggestions.map(suggestionReport);
-      }
-      return report;
-    },
-  };
+  return new LazyEvaluation(parts, catalog, policy);
 }
