@@ -344,11 +344,11 @@ export class D {
     const negative = (a < 0) !== (b < 0);
     const A = Math.abs(a);
     const B = Math.abs(b);
-    if (A >= LIMIT || B >= LIMIT) {
-      const q = Math.floor(A / B);
-      if (q * B === A && twoProductError(q, B, q * B) === 0) return make(negative ? -q : q, this.e - v.e);
-      return fromReference(toReference(this).div(toReference(v)));
-    }
+    // A whole quotient: fl(q × B) equals A only when q × B is A exactly (a product above 2⁵³ rounds to
+    // at least 2⁵³, above any safe A).
+    const whole = A / B;
+    if (whole === Math.floor(whole) && whole * B === A) return make(negative ? -whole : whole, this.e - v.e);
+    if (A >= LIMIT || B >= LIMIT) return fromReference(toReference(this).div(toReference(v)));
     // Scale A by 10^s so that floor(A·10^s ÷ B) has exactly PRECISION digits.
     const nA = digits(A);
     const nB = digits(B);
