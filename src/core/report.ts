@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { round } from './decimal.ts';
 import { SPECIES, SPECIES_IDS, isCharged, type SpeciesId } from './species.ts';
-import { lineShare, perLitre, mmHgPerMOsmPerL, type Bag, type BagLine } from './compute/bag.ts';
+import { lineShare, perKgOf, perLitreOf, mmHgPerMOsmPerL, type Bag, type BagLine } from './compute/bag.ts';
 import { ruleFor, SEVERITIES, type Policy } from './policy.ts';
 import type { Catalog } from './catalog.ts';
 import type { Finding, Verdict } from './findings.ts';
@@ -99,7 +99,6 @@ type SpeciesTotals = Pick<Report['totals'], 'mmolPerL' | 'mEqPerL' | 'mmolPerDay
 
 /** Every species' totals, each rounded once; a species the bag does not hold is 0 throughout. */
 function speciesTotals(bag: Bag): SpeciesTotals {
-  const w = bag.order.patient.weightKg;
   const empty = () => ({}) as Record<SpeciesId, number>;
   const out: SpeciesTotals = { mmolPerL: empty(), mEqPerL: empty(), mmolPerDay: empty(), mmolPerKgPerDay: empty() };
   for (const s of SPECIES_IDS) {
@@ -108,12 +107,12 @@ function speciesTotals(bag: Bag): SpeciesTotals {
       out.mmolPerL[s] = 0; out.mEqPerL[s] = 0; out.mmolPerDay[s] = 0; out.mmolPerKgPerDay[s] = 0;
       continue;
     }
-    const perL = perLitre(mmol, bag.finalVolumeMl);
+    const perL = perLitreOf(bag, mmol);
     out.mmolPerL[s] = round(perL, 2);
     // A monovalent ion's mEq is its mmol (× 1 changes no digit).
     out.mEqPerL[s] = !isCharged(s) ? 0 : Math.abs(SPECIES[s].charge ?? 0) === 1 ? out.mmolPerL[s] : round(mmolToMEq(s, as(perL, 'mmol')), 2);
     out.mmolPerDay[s] = round(mmol, 2);
-    out.mmolPerKgPerDay[s] = round(mmol.div(w), 3);
+    out.mmolPerKgPerDay[s] = round(perKgOf(bag, mmol), 3);
   }
   return out;
 }
@@ -187,16 +186,16 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
       aminoAcidPercent: round(bag.percent.aminoAcids, 2),
       lipidPercent: round(bag.percent.lipid, 2),
       grams: { dextrose: round(bag.grams.dextrose, 2), aminoAcids: round(bag.grams.aminoAcids, 2), lipid: round(bag.grams.lipid, 2) },
-      gramsPerKg: { dextrose: round(bag.grams.dextrose.div(w), 3), aminoAcids: round(bag.grams.aminoAcids.div(w), 3), lipid: round(bag.grams.lipid.div(w), 3) },
+      gramsPerKg: { dextrose: round(perKgOf(bag, bag.grams.dextrose), 3), aminoAcids: round(perKgOf(bag, bag.grams.aminoAcids), 3), lipid: round(perKgOf(bag, bag.grams.lipid), 3) },
       kcal: {
         dextrose: round(bag.kcal.dextrose, 1), aminoAcids: round(bag.kcal.aminoAcids, 1), lipid: round(bag.kcal.lipid, 1),
         other: round(bag.kcal.other, 1), total: round(bag.kcal.total, 1), nonProtein: round(bag.kcal.nonProtein, 1),
       },
-      kcalPerKg: round(bag.kcal.total.div(w), 1),
+      kcalPerKg: round(perKgOf(bag, bag.kcal.total), 1),
       nitrogenG: round(bag.nitrogenG, 2),
       npcToN: bag.npcToN ? round(bag.npcToN, 0) : null,
       girMgPerKgPerMin: round(bag.girMgPerKgPerMin, 2),
-      fluidMlPerKg: round(V.div(w), 1),
+      fluidMlPerKg: round(perKgOf(bag, V), 1),
       aluminumMcgPerKgPerDay: round(bag.aluminumMcgPerKgPerDay, 2),
     },
     information: {

@@ -1,7 +1,7 @@
 import type { D } from '../decimal.ts';
 import { fmt } from '../format.ts';
 import { ruleFor, type Policy } from '../policy.ts';
-import { perLitre, type Bag } from '../compute/bag.ts';
+import { perLitreOf, type Bag } from '../compute/bag.ts';
 import { as, mmolToMEq } from '../units.ts';
 import { fromRule, type Check, type Finding } from '../findings.ts';
 import { asInfo, outside, settled, DEFER } from './limits.ts';
@@ -19,13 +19,12 @@ export interface CalciumPhosphateLevels {
 
 /** Calcium (mmol/L and mEq/L) and phosphate, inorganic and organic, of the bag. */
 export function calciumPhosphateLevels(bag: Bag): CalciumPhosphateLevels {
-  const V = bag.finalVolumeMl;
-  const calciumMmolPerL = perLitre(bag.speciesMmol.Ca, V);
+  const calciumMmolPerL = perLitreOf(bag, bag.speciesMmol.Ca);
   return {
     calciumMmolPerL,
     calciumMEqPerL: mmolToMEq('Ca', as(calciumMmolPerL, 'mmol')),
-    inorganicPhosphateMmolPerL: perLitre(bag.speciesMmol.phosphate, V),
-    organicPhosphateMmolPerL: perLitre(bag.speciesMmol.glycerophosphate, V),
+    inorganicPhosphateMmolPerL: perLitreOf(bag, bag.speciesMmol.phosphate),
+    organicPhosphateMmolPerL: perLitreOf(bag, bag.speciesMmol.glycerophosphate),
   };
 }
 

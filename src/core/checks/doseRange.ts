@@ -1,7 +1,7 @@
 import { D, ZERO } from '../decimal.ts';
 import { fmt } from '../format.ts';
 import { doseRangeFor, DOSE_NUTRIENTS, type DoseNutrient, type Rule } from '../policy.ts';
-import type { Bag, BagLine } from '../compute/bag.ts';
+import { perKgOf, type Bag, type BagLine } from '../compute/bag.ts';
 import type { SpeciesId } from '../species.ts';
 import { as, mmolToMEq } from '../units.ts';
 import { fromRule, type Check, type Finding } from '../findings.ts';
@@ -25,15 +25,14 @@ const ION: Partial<Record<DoseNutrient, SpeciesId>> = { Na: 'Na', K: 'K', Ca: 'C
  * `mL/kg/day` → 29.41.
  */
 export function doseIn(bag: Bag, nutrient: DoseNutrient, unit: string): D | null {
-  const w = bag.order.patient.weightKg;
   const perKg = unit.includes('/kg');
-  const scale = (x: D) => (perKg ? x.div(w) : x);
+  const scale = (x: D) => (perKg ? perKgOf(bag, x) : x);
   switch (nutrient) {
     case 'fluid': return scale(bag.finalVolumeMl);
     case 'energy': return scale(bag.kcal.total);
     case 'protein': return scale(bag.grams.aminoAcids);
     case 'lipid': return scale(bag.grams.lipid);
-    case 'lipidRate': return unit === 'g/kg/h' ? bag.grams.lipid.div(w).div(bag.hours) : null;
+    case 'lipidRate': return unit === 'g/kg/h' ? perKgOf(bag, bag.grams.lipid).div(bag.hours) : null;
     case 'phosphate': return scale(bag.speciesMmol.phosphate.plus(bag.speciesMmol.glycerophosphate));
     case 'npcToN': return bag.npcToN;
     case 'Na': case 'K': case 'Ca': case 'Mg': {

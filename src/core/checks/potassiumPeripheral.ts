@@ -1,6 +1,6 @@
 import { fmt } from '../format.ts';
 import { ruleFor } from '../policy.ts';
-import { perLitre } from '../compute/bag.ts';
+import { perLitreOf } from '../compute/bag.ts';
 import { fromRule, type Check } from '../findings.ts';
 import { asInfo, outside, AGE_LABEL, DEFER } from './limits.ts';
 
@@ -12,7 +12,7 @@ import { asInfo, outside, AGE_LABEL, DEFER } from './limits.ts';
 export const potassiumPeripheral: Check = (bag, policy) => {
   if (bag.order.route !== 'peripheral' || bag.finalVolumeMl.isZero()) return [];
   const rule = ruleFor(policy, 'potassium-peripheral', bag.order.patient.ageGroup);
-  const k = perLitre(bag.speciesMmol.K, bag.finalVolumeMl);
+  const k = perLitreOf(bag, bag.speciesMmol.K);
   if (!rule?.max || !k.gt(0)) return [];
   const over = outside(k, rule) === 'max';
   const f = fromRule('potassium-peripheral', rule, {

@@ -109,8 +109,14 @@ function makeLine(line: OrderLine, volumeMl: D, perDay: BagLine['perDay']): BagL
     labelMOsm: product.mOsmPerMl ? product.mOsmPerMl.times(volumeMl) : particleMOsm,
     labelMissing,
     kcal: stock.kcalPerMl ? stock.kcalPerMl.times(volumeMl) : ZERO,
-    aluminumMcg: product.aluminumMcgPerL ? product.aluminumMcgPerL.times(volumeMl).div(THOUSAND) : ZERO,
+    aluminumMcg: lineAluminumMcg(product, stock, volumeMl),
   };
+}
+
+/** µg of aluminum a line brings: the stock's labelled µg/L × its volume ÷ 1000. */
+function lineAluminumMcg(product: Product, stock: StockFigures, volumeMl: D): D {
+  if (stock.aluminumMcgPerMl) return stock.aluminumMcgPerMl.times(volumeMl);
+  return product.aluminumMcgPerL ? product.aluminumMcgPerL.times(volumeMl).div(THOUSAND) : ZERO;
 }
 
 /**
@@ -185,6 +191,35 @@ export function computeBag(order: Order, policy: Policy): Bag {
     aluminumMcg: aluminum,
     aluminumMcgPerKgPerDay: aluminum.div(weight),
   };
+}
+
+// Figures that several checks and the report read (a species per litre, a dose per kg), each worked out
+// once per bag: kept by the bag and the decimal divided (both immutable values).
+const perKgMemo = new WeakMap<Bag, Map<D, D>>();
+const perLitreMemo = new WeakMap<Bag, Map<D, D>>();
+
+function memo(store: WeakMap<Bag, Map<D, D>>, bag: Bag, x: D, compute: () => D): D {
+  let known = store.get(bag);
+  if (!known) {
+    known = new Map();
+    store.set(bag, known);
+  }
+  let value = known.get(x);
+  if (!value) {
+    value = compute();
+    known.set(x, value);
+  }
+  return value;
+}
+
+/** A figure of the bag per kg of dosing weight (x ÷ weight), worked out once per bag and figure. */
+export function perKgOf(bag: Bag, x: D): D {
+  return memo(perKgMemo, bag, x, () => x.div(bag.order.patient.weightKg));
+}
+
+/** A figure of the bag per litre of its final volume (see perLitre), worked out once per bag and figure. */
+export function perLitreOf(bag: Bag, x: D): D {
+  return memo(perLitreMemo, bag, x, () => perLitre(x, bag.finalVolumeMl));
 }
 
 /** A line's mOsm under the reported method. */

@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { D, ZERO, sum, round } from '../decimal.ts';
 import { SPECIES, type SpeciesId } from '../species.ts';
-import { perLitre, type Bag } from './bag.ts';
+import { perLitre, perLitreOf, type Bag } from './bag.ts';
 import { stockFigures } from './stock.ts';
 import type { Product } from '../catalog.ts';
 
@@ -108,7 +108,7 @@ export function pereiraDaSilvaEstimate(bag: Bag): OsmolalityEstimate | null {
   const phosphorusMgPerL = perLitre(bag.speciesMmol.phosphate.plus(bag.speciesMmol.glycerophosphate), V).times(SPECIES.phosphate.molarMass);
   const value = perLitre(bag.grams.aminoAcids, V).times(8)
     .plus(perLitre(glucoseG, V).times(7))
-    .plus(perLitre(bag.speciesMmol.Na, V).times(2))
+    .plus(perLitreOf(bag, bag.speciesMmol.Na).times(2))
     .plus(phosphorusMgPerL.times('0.2'))
     .minus(50);
   if (!value.gt(0)) return null;

@@ -33,6 +33,14 @@ describe('stockFigures', () => {
     expect(stockFigures(stock('sodium-chloride-4')).nutrientMOsmPerMl.isZero()).toBe(true);
   });
 
+  it('gives aluminum per mL when µg/L ÷ 1000 is exact: 25 µg/L (the 21 CFR 201.323 large-volume limit) → 0.025 µg/mL', () => {
+    expect(stockFigures(stock('dextrose-70')).aluminumMcgPerMl?.toString()).toBe('0.025');
+    expect(stockFigures(stock('sodium-chloride-4')).aluminumMcgPerMl).toBeNull();
+    // 30 significant digits: ÷ 1000 would round at 28, so there is no per-mL figure and the bag divides after multiplying.
+    const long = product({ id: 'long', aluminumMcgPerL: '25.0000000000000000000000000001' });
+    expect(stockFigures(long).aluminumMcgPerMl).toBeNull();
+  });
+
   it('works each product out once: a second read gives the same figures', () => {
     const p = stock('calcium-gluconate-10');
     expect(stockFigures(p)).toBe(stockFigures(p));

@@ -1,4 +1,4 @@
-import { ZERO, type D } from '../decimal.ts';
+import { ZERO, THOUSAND, type D } from '../decimal.ts';
 import type { SpeciesId } from '../species.ts';
 import type { Product } from '../catalog.ts';
 
@@ -12,6 +12,19 @@ export interface StockFigures {
   kcalPerMl: D | null;
   /** The nutrient's own particles per mL (g/mL × mOsm/g), mOsm/mL; zero without a nutrient. */
   nutrientMOsmPerMl: D;
+  /**
+   * The labelled aluminum maximum per mL (µg/L ÷ 1000), when that division is exact (it is for any
+   * value of 28 significant digits or fewer): then × volume gives, digit for digit, µg/L × volume ÷ 1000.
+   * Null when the stock has no aluminum value or the division would round.
+   */
+  aluminumMcgPerMl: D | null;
+}
+
+/** µg/L ÷ 1000, or null when the quotient is not exact. */
+function exactPerMl(perL: D | null): D | null {
+  if (!perL) return null;
+  const perMl = perL.div(THOUSAND);
+  return perMl.times(THOUSAND).eq(perL) ? perMl : null;
 }
 
 // Products are immutable values (an edited catalog holds new product objects), so figures never go stale;
@@ -29,6 +42,7 @@ function figuresOf(product: Product): StockFigures {
     perMl,
     kcalPerMl: product.kcalPerMl ?? (n?.kcalPerGram ? n.kcalPerGram.times(n.gramsPerMl) : null),
     nutrientMOsmPerMl: n ? n.gramsPerMl.times(n.mOsmPerGram) : ZERO,
+    aluminumMcgPerMl: exactPerMl(product.aluminumMcgPerL),
   };
 }
 

@@ -1,19 +1,19 @@
 import { ruleFor, type Policy } from '../policy.ts';
 import type { Finding } from '../findings.ts';
+import { perKgOf } from '../compute/bag.ts';
 import type { Change, Checked, Proposal, Snapshot, SuggestionKind } from './suggestion.ts';
 
 /** The figures of a checked bag that a proposal changes. */
 export function snapshot(c: Checked, policy: Policy): Snapshot {
   const { bag } = c;
-  const w = bag.order.patient.weightKg;
   return {
     osmolarity: bag.osmolarity.reported,
     osmolarityLimit: ruleFor(policy, 'osmolarity-peripheral', bag.order.patient.ageGroup)?.max ?? null,
     verdict: c.verdict,
     volumeMl: bag.finalVolumeMl,
-    fluidMlPerKgPerDay: bag.finalVolumeMl.div(w),
+    fluidMlPerKgPerDay: perKgOf(bag, bag.finalVolumeMl),
     kcal: bag.kcal.total,
-    kcalPerKgPerDay: bag.kcal.total.div(w),
+    kcalPerKgPerDay: perKgOf(bag, bag.kcal.total),
     girMgPerKgPerMin: bag.girMgPerKgPerMin,
     dextroseG: bag.grams.dextrose,
   };
