@@ -657,6 +657,8 @@ export function toDecimal(value: unknown): D | null {
   if (typeof value === 'number') return Number.isFinite(value) ? new D(value) : null;
   if (typeof value === 'string') {
     const text = value.trim();
+    // Plain decimal text with a safe-integer coefficient (nearly every file) is read without the pattern.
+    if (parseDecimal(text)) return canonical(parsedC, parsedE);
     if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(text)) return null;
     const d = new D(text);
     return d.isFinite() ? d : null;

@@ -4,7 +4,7 @@
 import { describe, expect, test } from 'vitest';
 import fc from 'fast-check';
 import Decimal from 'decimal.js';
-import { D, PRECISION } from '../../src/core/decimal.ts';
+import { D, PRECISION, toDecimal } from '../../src/core/decimal.ts';
 
 const Ref = Decimal.clone({ precision: PRECISION, rounding: Decimal.ROUND_HALF_EVEN, toExpNeg: -7, toExpPos: 21 });
 type Ref = InstanceType<typeof Ref>;
@@ -93,6 +93,18 @@ describe('the engine decimal gives decimal.js results at 15 digits', { timeout: 
       expect(mine.isInteger()).toBe(ref.isInteger());
       expect(mine.isNeg()).toBe(ref.isNeg());
     }), RUNS);
+  });
+
+  test('reading file values: a decimal for plain decimal text (a sign, digits, a point, an exponent), null for anything else', () => {
+    const pattern = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+    const piece = fc.constantFrom('', '+', '-', '0', '7', '12', '.', 'e', 'E', '5', '00', ' ', 'x', '1e', '-3', '999999999999999', '0x1F', 'Infinity');
+    fc.assert(fc.property(fc.array(piece, { maxLength: 6 }).map((p) => p.join('')), (t) => {
+      const expected = pattern.test(t.trim()) ? new Ref(t.trim()) : null;
+      const mine = toDecimal(t);
+      if (expected === null || !expected.isFinite()) expect(mine).toBeNull();
+      else expect(mine?.valueOf()).toBe(expected.valueOf());
+    }), RUNS);
+    fc.assert(fc.property(text, (t) => { expect(toDecimal(t)?.valueOf()).toBe(new Ref(t).valueOf()); }), RUNS);
   });
 
   test('worked cases: a third, a repeating quotient, ties to even at the 15th digit', () => {
