@@ -70,9 +70,17 @@ export interface Bag {
 const R_L_MMHG = new D('8.314462618').div('133.322387415').times(1000);
 const KELVIN = new D('273.15');
 
+// The factor for each temperature decimal a policy holds, worked out once (decimals are immutable).
+const mmHgFactors = new WeakMap<D, D>();
+
 /** mmHg per mOsm/L at a temperature (°C), ideal solution: π = c·R·T. At 37 °C ≈ 19.34. */
 export function mmHgPerMOsmPerL(temperatureC: D): D {
-  return R_L_MMHG.times(temperatureC.plus(KELVIN)).div(1000);
+  let factor = mmHgFactors.get(temperatureC);
+  if (!factor) {
+    factor = R_L_MMHG.times(temperatureC.plus(KELVIN)).div(1000);
+    mmHgFactors.set(temperatureC, factor);
+  }
+  return factor;
 }
 
 function emptySpecies(): Record<SpeciesId, D> {
