@@ -64,6 +64,11 @@ export interface Bag {
   /** µg of aluminum in the whole bag (Σ each stock's labelled maximum × its volume). */
   aluminumMcg: D;
   aluminumMcgPerKgPerDay: D;
+  /**
+   * Figures of this bag divided once and kept (see perKgOf, perLitreOf), with the weight and volume they
+   * were divided by: a copy of the bag on another route shares them, a copy with another weight does not.
+   */
+  readonly derived: { readonly weightKg: D; readonly finalVolumeMl: D; readonly perKg: Map<D, D>; readonly perLitre: Map<D, D> };
 }
 
 // Gas constant in L·mmHg/(mol·K): 8.314462618 J/(mol·K) ÷ 133.322387415 Pa/mmHg × 1000 L/m³ (CODATA 2018; exact SI definitions).
@@ -198,20 +203,13 @@ export function computeBag(order: Order, policy: Policy): Bag {
     osmoticPressureMmHg: reported.times(mmHgPerMOsmPerL(policy.reference.osmoticPressureTemperatureC.value)),
     aluminumMcg: aluminum,
     aluminumMcgPerKgPerDay: aluminum.div(weight),
+    derived: { weightKg: weight, finalVolumeMl, perKg: new Map(), perLitre: new Map() },
   };
 }
 
 // Figures that several checks and the report read (a species per litre, a dose per kg), each worked out
-// once per bag: kept by the bag and the decimal divided (both immutable values).
-const perKgMemo = new WeakMap<Bag, Map<D, D>>();
-const perLitreMemo = new WeakMap<Bag, Map<D, D>>();
-
-function memo(store: WeakMap<Bag, Map<D, D>>, bag: Bag, x: D, compute: () => D): D {
-  let known = store.get(bag);
-  if (!known) {
-    known = new Map();
-    store.set(bag, known);
-  }
+// once per bag: kept in the bag's own maps, keyed by the decimal divided (both immutable values).
+function memo(known: Map<D, D>, x: D, compute: () => D): D {
   let value = known.get(x);
   if (!value) {
     value = compute();
@@ -222,12 +220,14 @@ function memo(store: WeakMap<Bag, Map<D, D>>, bag: Bag, x: D, compute: () => D):
 
 /** A figure of the bag per kg of dosing weight (x ÷ weight), worked out once per bag and figure. */
 export function perKgOf(bag: Bag, x: D): D {
-  return memo(perKgMemo, bag, x, () => x.div(bag.order.patient.weightKg));
+  const weight = bag.order.patient.weightKg;
+  return bag.derived.weightKg === weight ? memo(bag.derived.perKg, x, () => x.div(weight)) : x.div(weight);
 }
 
 /** A figure of the bag per litre of its final volume (see perLitre), worked out once per bag and figure. */
 export function perLitreOf(bag: Bag, x: D): D {
-  return memo(perLitreMemo, bag, x, () => perLitre(x, bag.finalVolumeMl));
+  const volume = bag.finalVolumeMl;
+  return bag.derived.finalVolumeMl === volume ? memo(bag.derived.perLitre, x, () => perLitre(x, volume)) : perLitre(x, volume);
 }
 
 /** A line's mOsm under the reported method. */
