@@ -143,6 +143,41 @@ function roundExactly(n: bigint, e: number): D {
   return fromReference(new Reference(`${n}e${e}`).toSignificantDigits(PRECISION, Decimal.ROUND_HALF_EVEN));
 }
 
+/** A factor this short times a rounded coefficient (below 10¹⁵) splits into exact partial products. */
+const SHORT = 1e7;
+
+/**
+ * a × b × 10^e rounded to PRECISION digits (half-even), for |a| < 10¹⁵ and |b| < 10⁷ — a volume times a
+ * stock's per-mL figure, the engine's commonest product. a splits at 10⁸ into parts whose products with b
+ * stay below 10¹⁵, so P = hi·10⁸ + lo is held exactly and rounded by its own digits, without the general
+ * error-free product.
+ */
+function productShort(a: number, b: number, e: number): D {
+  const negative = (a < 0) !== (b < 0);
+  const A = Math.abs(a);
+  const B = Math.abs(b);
+  const ah = Math.floor(A / 1e8); // exact: A/10⁸ below 10⁷ never rounds up to a whole number
+  let hi = ah * B;
+  let lo = (A - ah * 1e8) * B;
+  const carry = Math.floor(lo / 1e8);
+  lo -= carry * 1e8;
+  hi += carry;
+  if (hi < 1e7) {
+    const p = hi * 1e8 + lo; // below 10¹⁵: exact
+    return canonical(negative ? -p : p, e);
+  }
+  const k = digits(hi) - 7; // digits to drop, 1…8
+  const d = POW10[k]!;
+  const ql = Math.floor(lo / d);
+  const r = lo - ql * d;
+  let q = hi * POW10[8 - k]! + ql;
+  if (r !== 0) {
+    const twice = r * 2;
+    if (twice > d || (twice === d && odd(q))) q += 1;
+  }
+  return canonical(negative ? -q : q, e + k);
+}
+
 /** A safe integer times 10^e, rounded to PRECISION digits. */
 function make(c: number, e: number): D {
   return c < LIMIT && c > -LIMIT ? canonical(c, e) : roundPair(c, 0, e);
@@ -268,7 +303,7 @@ export class D {
     }
     // decimal.js reads (or rejects, with its own error) everything else: Infinity, NaN, long coefficients.
     const reference = new Reference(value as string | number);
-    if (reference.isFinite() && parseDecimal(reference.toString())) {
+    if (reference.isFinite() && parseDecimal(reference.valueOf())) {
       this.c = parsedC;
       this.e = parsedE;
       this.x = null;
@@ -328,6 +363,8 @@ export class D {
     const b = v.c;
     const p = a * b;
     if (p <= MAX && p >= -MAX) return make(p, this.e + v.e);
+    if (b < SHORT && b > -SHORT && a < LIMIT && a > -LIMIT) return productShort(a, b, this.e + v.e);
+    if (a < SHORT && a > -SHORT && b < LIMIT && b > -LIMIT) return productShort(b, a, this.e + v.e);
     return roundPair(p, twoProductError(a, b, p), this.e + v.e);
   }
 
@@ -613,6 +650,45 @@ export class D {
   }
 }
 
+/**
+ * a·10^d + b, times 10^e, rounded to PRECISION digits (half-even), for |a|, |b| < 10¹⁵ and 1 ≤ d ≤ 15 —
+ * two rounded figures of different sizes, the engine's commonest sum. b splits at 10^d into q·10^d + r,
+ * so the sum is S·10^d + r with S = a + q, held exactly and rounded by its own digits.
+ */
+function sumSplit(a: number, b: number, d: number, e: number): D {
+  const unit = POW10[d]!;
+  const q = Math.trunc(b / unit); // exact: b/10^d never rounds across a whole number below 10¹⁵
+  let r = b - q * unit;
+  let S = a + q;
+  if (S > 0 && r < 0) { S -= 1; r += unit; } else if (S < 0 && r > 0) { S += 1; r -= unit; }
+  const negative = S < 0 || (S === 0 && r < 0);
+  const Sm = Math.abs(S);
+  const rm = Math.abs(r);
+  if (Sm === 0) return canonical(r, e);
+  const drop = digits(Sm) + d - PRECISION;
+  if (drop <= 0) {
+    const exact = Sm * unit + rm; // below 10¹⁵
+    return canonical(negative ? -exact : exact, e);
+  }
+  let keep: number;
+  let half: number;
+  if (drop <= d) {
+    const cut = POW10[drop]!;
+    const high = Math.floor(rm / cut);
+    const rest = rm - high * cut;
+    keep = Sm * POW10[d - drop]! + high;
+    const twice = rest * 2;
+    half = rest === 0 ? -2 : twice < cut ? -1 : twice === cut ? 0 : 1;
+  } else {
+    // S has 16 digits: its last digit goes too, with all of r behind it.
+    keep = Math.floor(Sm / 10);
+    const last = Sm - keep * 10;
+    half = last === 0 && rm === 0 ? -2 : last < 5 ? -1 : last > 5 ? 1 : rm > 0 ? 1 : 0;
+  }
+  if (half === 1 || (half === 0 && odd(keep))) keep += 1;
+  return canonical(negative ? -keep : keep, e + drop);
+}
+
 /** a·10^ea + b·10^eb for safe-integer coefficients, rounded to PRECISION digits. */
 function add(a: number, ea: number, b: number, eb: number): D {
   if (a === 0) return b === 0 ? canonical(a + b, 0) : make(b, eb);
@@ -635,6 +711,7 @@ function add(a: number, ea: number, b: number, eb: number): D {
     const s = scaled + b;
     if (s <= MAX && s >= -MAX) return make(s, eb);
   }
+  if (d <= 15 && a < LIMIT && a > -LIMIT && b < LIMIT && b > -LIMIT) return sumSplit(a, b, d, eb);
   // Beyond 2¹⁰⁴ (or with a 16-digit b) the error terms below could reach 2⁵³: the exact slow path.
   if (scaled >= 2e31 || scaled <= -2e31 || b >= 4.5e15 || b <= -4.5e15) return roundExactly(BigInt(a) * 10n ** BigInt(d) + BigInt(b), eb);
   // Exactly: a·10^d = scaled + err (|err| ≤ 2⁵⁰), err + b is an integer below 2⁵³; then an error-free sum.

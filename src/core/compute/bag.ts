@@ -2,7 +2,7 @@ import { D, ZERO, THOUSAND, sum } from '../decimal.ts';
 import { SPECIES_IDS, type SpeciesId } from '../species.ts';
 import type { Order, OrderLine, BaseUnit } from '../order.ts';
 import type { Policy } from '../policy.ts';
-import type { Product, Role } from '../catalog.ts';
+import type { Product } from '../catalog.ts';
 import { lineVolumeMl, perDayAmount } from './volumes.ts';
 import { stockFigures, type StockFigures } from './stock.ts';
 
@@ -88,21 +88,6 @@ export function mmHgPerMOsmPerL(temperatureC: D): D {
   return factor;
 }
 
-function emptySpecies(): Record<SpeciesId, D> {
-  const out = {} as Record<SpeciesId, D>;
-  for (const s of SPECIES_IDS) out[s] = ZERO;
-  return out;
-}
-
-function energySource(role: Role): EnergySource {
-  switch (role) {
-    case 'dextrose': return 'dextrose';
-    case 'amino-acids': return 'aminoAcids';
-    case 'lipid': return 'lipid';
-    default: return 'other';
-  }
-}
-
 /** x per litre of the bag (x ÷ V × 1000); zero for an empty bag. */
 export function perLitre(x: D, volumeMl: D): D {
   return volumeMl.isZero() ? ZERO : x.div(volumeMl).times(THOUSAND);
@@ -155,27 +140,49 @@ export function computeBag(order: Order, policy: Policy): Bag {
   }
   lines.sort((a, b) => a.line.index - b.line.index);
 
-  const speciesMmol = emptySpecies();
-  const grams = { dextrose: ZERO, aminoAcids: ZERO, lipid: ZERO };
-  const kcal = { dextrose: ZERO, aminoAcids: ZERO, lipid: ZERO, other: ZERO };
+  // Running totals in plain locals and an array by species index (records keyed by a variable are slow
+  // to write); the species record is built once at the end.
+  const mmol: D[] = SPECIES_IDS.map(() => ZERO);
+  let dextroseG = ZERO;
+  let aminoAcidsG = ZERO;
+  let lipidG = ZERO;
+  let dextroseKcal = ZERO;
+  let aminoAcidsKcal = ZERO;
+  let lipidKcal = ZERO;
+  let otherKcal = ZERO;
   let particle = ZERO;
   let label = ZERO;
   let aluminum = ZERO;
-  for (const l of lines) {
-    for (const [s, perMl] of l.stock.perMl) speciesMmol[s] = speciesMmol[s].plus(perMl.times(l.volumeMl));
+  for (let i = 0; i < lines.length; i++) {
+    const l = lines[i]!;
+    const v = l.volumeMl;
+    const held = l.stock.perMlByIndex;
+    for (let j = 0; j < held.length; j++) {
+      const [k, perMl] = held[j]!;
+      mmol[k] = mmol[k]!.plus(perMl.times(v));
+    }
+    const role = l.product.role;
     const n = l.product.nutrient;
     if (n) {
-      const g = n.gramsPerMl.times(l.volumeMl);
-      if (l.product.role === 'dextrose') grams.dextrose = grams.dextrose.plus(g);
-      else if (l.product.role === 'amino-acids') grams.aminoAcids = grams.aminoAcids.plus(g);
-      else if (l.product.role === 'lipid') grams.lipid = grams.lipid.plus(g);
+      const g = n.gramsPerMl.times(v);
+      if (role === 'dextrose') dextroseG = dextroseG.plus(g);
+      else if (role === 'amino-acids') aminoAcidsG = aminoAcidsG.plus(g);
+      else if (role === 'lipid') lipidG = lipidG.plus(g);
     }
-    const src = energySource(l.product.role);
-    kcal[src] = kcal[src].plus(l.kcal);
+    if (!l.kcal.isZero()) {
+      if (role === 'dextrose') dextroseKcal = dextroseKcal.plus(l.kcal);
+      else if (role === 'amino-acids') aminoAcidsKcal = aminoAcidsKcal.plus(l.kcal);
+      else if (role === 'lipid') lipidKcal = lipidKcal.plus(l.kcal);
+      else otherKcal = otherKcal.plus(l.kcal);
+    }
     particle = particle.plus(l.particleMOsm);
     label = label.plus(l.labelMOsm);
     aluminum = aluminum.plus(l.aluminumMcg);
   }
+  const speciesMmol = {} as Record<SpeciesId, D>;
+  for (let k = 0; k < SPECIES_IDS.length; k++) speciesMmol[SPECIES_IDS[k]!] = mmol[k]!;
+  const grams = { dextrose: dextroseG, aminoAcids: aminoAcidsG, lipid: lipidG };
+  const kcal = { dextrose: dextroseKcal, aminoAcids: aminoAcidsKcal, lipid: lipidKcal, other: otherKcal };
   const particleOsm = perLitre(particle, finalVolumeMl);
   const labelOsm = perLitre(label, finalVolumeMl);
   const method: Osmolarity['method'] =

@@ -1,5 +1,5 @@
 import { ZERO, THOUSAND, type D } from '../decimal.ts';
-import type { SpeciesId } from '../species.ts';
+import { SPECIES_IDS, type SpeciesId } from '../species.ts';
 import type { Product } from '../catalog.ts';
 
 /** What a stock brings per mL, worked out once per product and read by every bag that holds it. */
@@ -8,6 +8,8 @@ export interface StockFigures {
   holds: ReadonlySet<SpeciesId>;
   /** Every perMl entry of the stock, in the catalog's order. */
   perMl: readonly (readonly [SpeciesId, D])[];
+  /** The same entries by the species' index in SPECIES_IDS (for totals kept in an array). */
+  perMlByIndex: readonly (readonly [number, D])[];
   /** kcal per mL: the labelled figure, else the nutrient's kcal/g × g/mL; null when the stock has neither. */
   kcalPerMl: D | null;
   /** The nutrient's own particles per mL (g/mL × mOsm/g), mOsm/mL; zero without a nutrient. */
@@ -40,6 +42,7 @@ function figuresOf(product: Product): StockFigures {
   return {
     holds: new Set(perMl.filter(([, value]) => value.gt(ZERO)).map(([s]) => s)),
     perMl,
+    perMlByIndex: perMl.map(([s, value]) => [SPECIES_IDS.indexOf(s), value] as const),
     kcalPerMl: product.kcalPerMl ?? (n?.kcalPerGram ? n.kcalPerGram.times(n.gramsPerMl) : null),
     nutrientMOsmPerMl: n ? n.gramsPerMl.times(n.mOsmPerGram) : ZERO,
     aluminumMcgPerMl: exactPerMl(product.aluminumMcgPerL),
