@@ -4,15 +4,18 @@ import Decimal from 'decimal.js';
  * The engine's decimal numbers: every result is the exact result rounded to 15 significant decimal
  * digits, half-even, the same rule decimal.js follows with `precision: 15` (the tests hold the two side by
  * side on random operands). A dose of 10⁵ units is exact to 10⁻¹⁰ of a unit; the report shows at most 4
- * decimals, so the 15th digit never reaches a printed figure except through a tie it would also meet at
- * any other precision.
+ * decimals, so the 15th digit reaches a printed figure only when the exact value sits on a rounding tie
+ * after a quotient that cannot be exact (13.93 mEq calcium through 0.465 mEq/mL and back to 6.965 mmol may
+ * print 6.96 or 6.97); that is so at any finite precision.
  *
  * Why not decimal.js for every operation: a decimal.js operation allocates digit arrays and costs 0.1–1.5 µs;
  * a batch of a day's orders makes millions of them. Here a value is a safe-integer coefficient and a
  * power of ten, `c × 10^e`, and every operation works on binary floats that are exact integers: sums that
  * stay below 2⁵³ are exact; wider sums and products are carried exactly as an unevaluated sum of two floats
- * (Dekker's error-free product, Knuth's error-free sum) and rounded to 15 digits by an exact remainder; a
- * quotient is estimated in floating point and corrected by the same exact remainder. decimal.js stays
+ * (Dekker's error-free product, Knuth's error-free sum) and rounded to 15 digits by an exact remainder —
+ * or, in the commonest cases (a long figure times a short one, two long figures of different sizes), split
+ * into partial results that stay exact; a quotient is estimated in floating point and corrected by the same
+ * exact remainder. decimal.js stays
  * behind the fast paths for what they do not cover: ±Infinity and NaN, a coefficient of more than 16 digits
  * read from input, and operands more than 10²² apart.
  */
