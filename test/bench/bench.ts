@@ -1,6 +1,7 @@
 // Engine and CLI benchmarks: print figures beside their targets, assert nothing. Run with `npm run bench`
 // (it builds the CLI and this bundle first). Environment: BENCH_ORDERS (in-process batch, default 100,000),
-// BENCH_STREAM_ORDERS (force the size of the big NDJSON run; by default 1,000,000 when it fits the time budget).
+// BENCH_STREAM_ORDERS (force the size of the big NDJSON run; by default 1,000,000 when it fits the time budget),
+// BENCH_SECTIONS (which numbered sections to run, e.g. "2,3" for the engine alone while working on it; all by default).
 import { once } from 'node:events';
 import { createWriteStream, mkdtempSync, rmSync, statSync } from 'node:fs';
 import { cpus, tmpdir } from 'node:os';
@@ -248,13 +249,23 @@ function earlierFigures(): void {
   line('batch of 10,000 random orders (10-40 lines)', `${num.format(random.length / seconds)} orders/s, ${num.format(held)} held`);
 }
 
+/** The sections BENCH_SECTIONS names (all when it is unset); sections 2 and 3 run together. */
+function sections(): Set<number> {
+  const text = process.env.BENCH_SECTIONS;
+  if (!text) return new Set([1, 2, 3, 4, 5]);
+  const chosen = new Set(text.split(',').map((t) => Number(t.trim())));
+  if ([...chosen].some((n) => !Number.isInteger(n) || n < 1 || n > 5)) throw new Error(`BENCH_SECTIONS must list section numbers 1–5 (got "${text}")`);
+  return chosen;
+}
+
 async function main(): Promise<void> {
   const cpu = cpus();
+  const run = sections();
   console.log(`Osmocount benchmarks — Node ${process.version}, ${cpu.length} CPU(s) (${cpu[0]?.model.trim() ?? 'unknown'})`);
-  coldStart();
-  batchFigures();
-  await streamFigures();
-  earlierFigures();
+  if (run.has(1)) coldStart();
+  if (run.has(2) || run.has(3)) batchFigures();
+  if (run.has(4)) await streamFigures();
+  if (run.has(5)) earlierFigures();
   console.log(`\nBench done in ${one.format((performance.now() - began) / 60000)} min.`);
 }
 
