@@ -159,6 +159,16 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
   const plasma = policy.reference.plasmaOsmolality;
   const temp = policy.reference.osmoticPressureTemperatureC.value;
   const reported = bag.osmolarity.reported;
+  const species = speciesTotals(bag);
+  const information: Report['information'] = {
+    osmoticPressureMmHg: round(bag.osmoticPressureMmHg, 0),
+    mmHgPerMOsmPerL: round(mmHgPerMOsmPerL(temp), 2),
+    temperatureC: round(temp, 1),
+    plasmaOsmolality: { min: round(plasma.min, 0), max: round(plasma.max, 0), unit: plasma.unit, source: plasma.source },
+    timesPlasma: { low: round(reported.div(plasma.max), 2), high: round(reported.div(plasma.min), 2) },
+  };
+  const predicted = predictedOsmolalityField(bag).predictedOsmolality;
+  if (predicted) information.predictedOsmolality = predicted;
   return {
     format: 'osmocount-report',
     version: 1,
@@ -181,7 +191,10 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
       peripheralLimit: limit ? round(limit, 1) : null,
     },
     totals: {
-      ...speciesTotals(bag),
+      mmolPerL: species.mmolPerL,
+      mEqPerL: species.mEqPerL,
+      mmolPerDay: species.mmolPerDay,
+      mmolPerKgPerDay: species.mmolPerKgPerDay,
       dextrosePercent: round(bag.percent.dextrose, 2),
       aminoAcidPercent: round(bag.percent.aminoAcids, 2),
       lipidPercent: round(bag.percent.lipid, 2),
@@ -198,14 +211,7 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
       fluidMlPerKg: round(perKgOf(bag, V), 1),
       aluminumMcgPerKgPerDay: round(bag.aluminumMcgPerKgPerDay, 2),
     },
-    information: {
-      osmoticPressureMmHg: round(bag.osmoticPressureMmHg, 0),
-      mmHgPerMOsmPerL: round(mmHgPerMOsmPerL(temp), 2),
-      temperatureC: round(temp, 1),
-      plasmaOsmolality: { min: round(plasma.min, 0), max: round(plasma.max, 0), unit: plasma.unit, source: plasma.source },
-      timesPlasma: { low: round(reported.div(plasma.max), 2), high: round(reported.div(plasma.min), 2) },
-      ...predictedOsmolalityField(bag),
-    },
+    information,
     findings: findings.map((f) => {
       const out: Report['findings'][number] = {
         code: f.code, severity: f.severity,
