@@ -18,11 +18,15 @@ export const LINE_UNITS = ['mL', 'g', 'mEq', 'mmol', 'mL/kg', 'g/kg', 'mEq/kg', 
 export type LineUnit = (typeof LINE_UNITS)[number];
 export type BaseUnit = 'mL' | 'g' | 'mEq' | 'mmol';
 
+const BASE_UNIT: Readonly<Record<LineUnit, BaseUnit>> = {
+  mL: 'mL', g: 'g', mEq: 'mEq', mmol: 'mmol', 'mL/kg': 'mL', 'g/kg': 'g', 'mEq/kg': 'mEq', 'mmol/kg': 'mmol',
+};
+/** The unit without its `/kg`: "mEq/kg" → "mEq". */
 export function baseUnit(unit: LineUnit): BaseUnit {
-  return unit.replace('/kg', '') as BaseUnit;
+  return BASE_UNIT[unit];
 }
 export function isPerKg(unit: LineUnit): boolean {
-  return unit.endsWith('/kg');
+  return BASE_UNIT[unit] !== unit;
 }
 
 /**
