@@ -4,7 +4,7 @@ import { compoundOrder, hasIons } from '../core/compound/compoundOrder.ts';
 import { toCompoundReport, type CompoundReport } from '../core/compound/compoundReport.ts';
 import { ION_INFO, ION_KEYS } from '../core/compound/ions.ts';
 import { SPECIES, isSpeciesId } from '../core/species.ts';
-import { ordersFromText, formatFileProblem, type FileProblem } from './inputs.ts';
+import { ordersInFiles, formatFileProblem, type FileProblem } from './inputs.ts';
 import { CAUTION, columns } from './table.ts';
 import { EXIT, type CliIo } from './io.ts';
 import { loadSetup } from './setup.ts';
@@ -80,22 +80,11 @@ export async function compound(args: string[], io: CliIo): Promise<number> {
 
   const reports: CompoundReport[] = [];
   const problems: FileProblem[] = [];
-  for (const file of files) {
-    let text: string;
-    try {
-      text = await io.readFile(file);
-    } catch (e) {
-      problems.push({ file, where: '', problem: { path: '(file)', message: `cannot be read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})` } });
-      continue;
-    }
-    const found = ordersFromText(file, text);
-    problems.push(...found.problems);
-    for (const o of found.orders) {
-      const r = parseOrder(o.value, setup.catalog);
-      if (!r.ok) { problems.push(...r.problems.map((problem) => ({ file: o.file, where: o.where, problem }))); continue; }
-      if (!hasIons(r.value)) { problems.push({ file: o.file, where: o.where, problem: { path: 'ions', message: 'is required: osmocount compound allocates an order\'s ion block (use osmocount check for orders written as salts)' } }); continue; }
-      reports.push(toCompoundReport(compoundOrder(r.value, setup.catalog, setup.policy)));
-    }
+  for await (const o of ordersInFiles(io, files, problems)) {
+    const r = parseOrder(o.value, setup.catalog);
+    if (!r.ok) { problems.push(...r.problems.map((problem) => ({ file: o.file, where: o.where, problem }))); continue; }
+    if (!hasIons(r.value)) { problems.push({ file: o.file, where: o.where, problem: { path: 'ions', message: 'is required: osmocount compound allocates an order\'s ion block (use osmocount check for orders written as salts)' } }); continue; }
+    reports.push(toCompoundReport(compoundOrder(r.value, setup.catalog, setup.policy)));
   }
   for (const p of problems) io.stderr(formatFileProblem(p));
   if (parsed.values.json) {

@@ -1,4 +1,5 @@
 import { formatProblem, type Problem } from '../core/problems.ts';
+import { readError, type CliIo } from './io.ts';
 
 /** One order found in an input file, with where it came from (for messages). */
 export interface FoundOrder {
@@ -79,4 +80,23 @@ export function foreignFormat(value: unknown): string | null {
   if (typeof value !== 'object' || value === null || !('format' in value)) return null;
   const format = (value as { format: unknown }).format;
   return typeof format === 'string' && format.startsWith('osmocount-') && format !== 'osmocount-order' ? format : null;
+}
+
+/**
+ * The orders of files read whole (compound and print), file by file. A file that cannot be read, and
+ * text that holds no valid order list, go to `problems` as they are met, before the file's orders.
+ */
+export async function* ordersInFiles(io: CliIo, files: readonly string[], problems: FileProblem[]): AsyncGenerator<FoundOrder> {
+  for (const file of files) {
+    let text: string;
+    try {
+      text = await io.readFile(file);
+    } catch (e) {
+      problems.push({ file, where: '', problem: { path: '(file)', message: `cannot be read (${readError(e)})` } });
+      continue;
+    }
+    const found = ordersFromText(file, text);
+    problems.push(...found.problems);
+    yield* found.orders;
+  }
 }

@@ -9,7 +9,7 @@ import { sheetModel } from '../ui/print/sheetModel.ts';
 import { parseDateTime } from '../ui/print/localTime.ts';
 import { sheetSequence } from '../ui/print/mixing.ts';
 import { PAPERS, checkTimeZone, parseLabelSize, type Paper, type PrintOptions, type PrintSequenceStep } from '../ui/print/options.ts';
-import { ordersFromText, formatFileProblem, type FileProblem } from './inputs.ts';
+import { ordersInFiles, formatFileProblem, type FileProblem } from './inputs.ts';
 import { EXIT, type CliIo } from './io.ts';
 import { loadSetup } from './setup.ts';
 import { USAGE } from './usage.ts';
@@ -116,23 +116,12 @@ export async function print(args: string[], io: CliIo): Promise<number> {
   const reports: Report[] = [];
   const sequences: (PrintSequenceStep[] | undefined)[] = [];
   const problems: FileProblem[] = [];
-  for (const file of a.files) {
-    let text: string;
-    try {
-      text = await io.readFile(file);
-    } catch (e) {
-      problems.push({ file, where: '', problem: { path: '(file)', message: `cannot be read (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})` } });
-      continue;
-    }
-    const found = ordersFromText(file, text);
-    problems.push(...found.problems);
-    for (const o of found.orders) {
-      const r = checkOrder(o.value, setup.catalog, setup.policy);
-      if (r.ok) {
-        reports.push(r.value.report);
-        sequences.push(sheetSequence(r.value.order.lines, setup.policy));
-      } else problems.push(...r.problems.map((problem) => ({ file: o.file, where: o.where, problem })));
-    }
+  for await (const o of ordersInFiles(io, a.files, problems)) {
+    const r = checkOrder(o.value, setup.catalog, setup.policy);
+    if (r.ok) {
+      reports.push(r.value.report);
+      sequences.push(sheetSequence(r.value.order.lines, setup.policy));
+    } else problems.push(...r.problems.map((problem) => ({ file: o.file, where: o.where, problem })));
   }
   for (const p of problems) io.stderr(formatFileProblem(p));
 
