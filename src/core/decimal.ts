@@ -207,24 +207,42 @@ function parsed(v: Numeric): D {
 let parsedC = 0;
 let parsedE = 0;
 
-/** Read a plain decimal string (decimal.js's grammar) into parsedC/parsedE; false when it needs decimal.js. */
+/**
+ * Read a plain decimal string (decimal.js's grammar) into parsedC/parsedE; false when it needs decimal.js.
+ * The digits are summed as they are read (exact while the value stays below 2⁵³); zeros wait until a
+ * non-zero digit follows them, so trailing zeros become the exponent.
+ */
 function parseDecimal(s: string): boolean {
   const n = s.length;
   let i = 0;
   let negative = false;
   const first = s.charCodeAt(0);
   if (first === 45) { negative = true; i = 1; } else if (first === 43) i = 1;
-  const intStart = i;
-  while (i < n && s.charCodeAt(i) >= 48 && s.charCodeAt(i) <= 57) i++;
-  const intEnd = i;
-  let fracStart = i;
-  let fracEnd = i;
-  if (i < n && s.charCodeAt(i) === 46) {
-    fracStart = ++i;
-    while (i < n && s.charCodeAt(i) >= 48 && s.charCodeAt(i) <= 57) i++;
-    fracEnd = i;
+  let c = 0;
+  let significant = 0; // digits from the first non-zero one to the last non-zero one
+  let zeros = 0; // zeros read since the last non-zero digit
+  let fraction = 0; // digits after the point
+  let any = false;
+  let inFraction = false;
+  for (; i < n; i++) {
+    const code = s.charCodeAt(i);
+    if (code === 46 && !inFraction) { inFraction = true; continue; }
+    const digit = code - 48;
+    if (digit < 0 || digit > 9) break;
+    any = true;
+    if (inFraction) fraction++;
+    if (digit === 0) {
+      if (significant > 0) zeros++;
+    } else if (significant === 0) {
+      c = digit;
+      significant = 1;
+    } else {
+      significant += zeros + 1;
+      if (significant <= 16) c = c * POW10[zeros + 1]! + digit;
+      zeros = 0;
+    }
   }
-  if (intEnd === intStart && fracEnd === fracStart) return false;
+  if (!any) return false;
   let exponent = 0;
   if (i < n && (s.charCodeAt(i) | 32) === 101) {
     const expStart = ++i;
@@ -234,19 +252,55 @@ function parseDecimal(s: string): boolean {
     if (i === digitsStart || i - digitsStart > 9) return false;
     exponent = Number(s.slice(expStart, i));
   }
-  if (i !== n) return false;
-  let all = s.slice(intStart, intEnd) + s.slice(fracStart, fracEnd);
-  let lead = 0;
-  while (lead < all.length - 1 && all.charCodeAt(lead) === 48) lead++;
-  if (lead > 0) all = all.slice(lead);
-  let trail = all.length;
-  while (trail > 1 && all.charCodeAt(trail - 1) === 48) trail--;
-  if (trail > 16) return false;
-  const c = Number(trail === all.length ? all : all.slice(0, trail));
-  if (c > MAX) return false;
+  if (i !== n || significant > 16 || c > MAX) return false;
   parsedC = negative ? -c : c;
-  parsedE = c === 0 ? 0 : exponent - (fracEnd - fracStart) + (all.length - trail);
+  parsedE = c === 0 ? 0 : exponent - fraction + zeros;
   return true;
+}
+
+/**
+ * Read a finite binary float with at most 15 significant digits and 15 decimals (every dose a file holds:
+ * 2.5, 0.465, 1234.5678) into parsedC/parsedE without writing its text: the decimal String(v) shows. The
+ * first k for which M = v·10^k is a whole number below 10¹⁵ and M ÷ 10^k gives v back is taken: that
+ * division is correctly rounded, so the decimal M·10⁻ᵏ reads as v, and no other decimal of 15 digits or
+ * fewer does (they are further apart than a float's spacing), so it is the shortest one, String(v)'s.
+ * False when there is none (1/3, 1e-20, 0.1 + 0.2): the caller reads the text.
+ */
+function shortDecimal(v: number): boolean {
+  const magnitude = Math.abs(v);
+  if (!(magnitude < 1e15) || magnitude < 1e-15) return false;
+  for (let k = 1; k <= 15; k++) {
+    const scale = POW10[k]!;
+    const m = v * scale;
+    if (m >= 1e15 || m <= -1e15) return false;
+    if (m === Math.floor(m) && m / scale === v) {
+      let c = m;
+      let e = -k;
+      while (tens(c)) { c /= 10; e += 1; }
+      parsedC = c;
+      parsedE = e;
+      return true;
+    }
+  }
+  return false;
+}
+
+/** A number, decimal text or decimal read into a new decimal (decimal.js's grammar and results). */
+function readValue(value: Numeric): D {
+  if (value instanceof D) return value;
+  if (typeof value === 'number' && Number.isInteger(value) && value <= MAX && value >= -MAX) {
+    let coefficient = value;
+    let exponent = 0;
+    if (coefficient !== 0) while (tens(coefficient)) { coefficient /= 10; exponent += 1; }
+    return new D(RAW, coefficient, exponent, null);
+  }
+  if (typeof value === 'number' && shortDecimal(value)) return new D(RAW, parsedC, parsedE, null);
+  const text = typeof value === 'number' ? String(value) : value;
+  if (typeof text === 'string' && parseDecimal(text)) return canonical(parsedC, parsedE);
+  // decimal.js reads (or rejects, with its own error) everything else: Infinity, NaN, long coefficients.
+  const reference = new Reference(value as string | number);
+  if (reference.isFinite() && parseDecimal(reference.valueOf())) return new D(RAW, parsedC, parsedE, null);
+  return new D(RAW, NaN, 0, reference);
 }
 
 /**
@@ -273,48 +327,18 @@ export class D {
   constructor(value: Numeric);
   constructor(raw: typeof RAW, c: number, e: number, x: Reference | null);
   constructor(value: Numeric | typeof RAW, c = 0, e = 0, x: Reference | null = null) {
+    // Kept this small on purpose: every operation ends in `new D(RAW, …)`, and a short constructor is
+    // inlined there. Reading a number or text is readValue's work.
     if (value === RAW) {
       this.c = c;
       this.e = e;
       this.x = x;
-      return;
+    } else {
+      const read = readValue(value);
+      this.c = read.c;
+      this.e = read.e;
+      this.x = read.x;
     }
-    if (value instanceof D) {
-      this.c = value.c;
-      this.e = value.e;
-      this.x = value.x;
-      return;
-    }
-    if (typeof value === 'number' && Number.isInteger(value) && value <= MAX && value >= -MAX) {
-      let coefficient = value;
-      let exponent = 0;
-      if (coefficient !== 0) while (tens(coefficient)) { coefficient /= 10; exponent += 1; }
-      this.c = coefficient;
-      this.e = exponent;
-      this.x = null;
-      return;
-    }
-    const text = typeof value === 'number' ? String(value) : value;
-    if (typeof text === 'string' && parseDecimal(text)) {
-      let coefficient = parsedC;
-      let exponent = parsedE;
-      if (coefficient !== 0) while (tens(coefficient)) { coefficient /= 10; exponent += 1; }
-      this.c = coefficient;
-      this.e = exponent;
-      this.x = null;
-      return;
-    }
-    // decimal.js reads (or rejects, with its own error) everything else: Infinity, NaN, long coefficients.
-    const reference = new Reference(value as string | number);
-    if (reference.isFinite() && parseDecimal(reference.valueOf())) {
-      this.c = parsedC;
-      this.e = parsedE;
-      this.x = null;
-      return;
-    }
-    this.c = NaN;
-    this.e = 0;
-    this.x = reference;
   }
 
   static max(...values: Numeric[]): D {
@@ -520,6 +544,21 @@ export class D {
   /** toDecimalPlaces(dp) (half-even) as the nearest binary float, without making the rounded decimal. */
   toRoundedNumber(dp: number): number {
     if (this.x !== null || this.e >= -dp || this.c === 0) return this.toDecimalPlaces(dp).toNumber();
+    const shift = -dp - this.e;
+    const magnitude = Math.abs(this.c);
+    if (shift <= 15 && magnitude < LIMIT && dp <= 22) {
+      // A rounded coefficient (below 10¹⁵): floor(magnitude ÷ 10^shift) from the float quotient, at most one
+      // off, and the remainder exact (every product here stays below 2⁵³).
+      const d = POW10[shift]!;
+      let q = Math.floor(magnitude / d);
+      let r = magnitude - q * d;
+      if (r < 0) { q -= 1; r += d; } else if (r >= d) { q += 1; r -= d; }
+      const twice = r * 2;
+      if (twice > d || (twice === d && odd(q))) q += 1;
+      if (q === 0) return this.c < 0 ? -0 : 0;
+      const n = q / POW10[dp]!;
+      return this.c < 0 ? -n : n;
+    }
     const q = this.roundedCoefficient(dp, HALF_EVEN);
     if (q === 0) return this.c < 0 ? -0 : 0;
     return dp <= 22 ? q / POW10[dp]! : Number(`${q}e-${dp}`);

@@ -32,6 +32,19 @@ describe('the engine decimal gives decimal.js results at 15 digits', { timeout: 
   test('reading decimal strings and numbers', () => {
     fc.assert(fc.property(text, (t) => same(new D(t), new Ref(t))), RUNS);
     fc.assert(fc.property(fc.double({ noNaN: true, noDefaultInfinity: true }), (n) => same(new D(n), new Ref(n))), RUNS);
+    // Decimal text with a point, leading and trailing zeros, a sign and an exponent (as files write them).
+    const pointed = fc.tuple(fc.constantFrom('', '-', '+'), fc.string({ unit: fc.constantFrom('0', '0', '1', '5', '9'), maxLength: 12 }),
+      fc.boolean(), fc.string({ unit: fc.constantFrom('0', '0', '3', '7'), maxLength: 12 }), fc.constantFrom('', 'e3', 'E-2', 'e+0'))
+      .filter(([, whole, point, fraction]) => whole.length > 0 || (point && fraction.length > 0))
+      .map(([sign, whole, point, fraction, exp]) => `${sign}${whole}${point ? '.' : ''}${point ? fraction : ''}${exp}`);
+    fc.assert(fc.property(pointed, (t) => same(new D(t), new Ref(t))), RUNS);
+    // Numbers as a JSON file holds them: a short decimal read into a float (2.5, 0.465, 1234.5678), and its
+    // neighbours one float step away (they need 16 or 17 digits, and take the text path).
+    const short = fc.tuple(fc.boolean(), coefficient, fc.integer({ min: -18, max: 3 })).map(([negative, c, e]) => Number(`${negative ? '-' : ''}${c}e${e}`));
+    fc.assert(fc.property(short, fc.constantFrom(0, 1, -1), (n, step) => {
+      const v = n + step * Math.abs(n) * Number.EPSILON;
+      same(new D(v), new Ref(v));
+    }), RUNS);
   });
 
   test('plus, minus, times and div, each rounded once to 15 significant digits', () => {
@@ -70,6 +83,12 @@ describe('the engine decimal gives decimal.js results at 15 digits', { timeout: 
       same(new D(t).toDecimalPlaces(dp, rm), new Ref(t).toDecimalPlaces(dp, rm as Decimal.Rounding));
       expect(new D(t).toFixed(dp, rm)).toBe(new Ref(t).toFixed(dp, rm as Decimal.Rounding));
       expect(new D(t).toRoundedNumber(dp)).toBe(new Ref(t).toDecimalPlaces(dp).toNumber());
+    }), RUNS);
+    // As the report rounds: results of operations (15 digits, ties included) to 0–4 decimals.
+    const result = fc.tuple(fc.boolean(), fc.integer({ min: 0, max: 999_999_999_999_999 }), fc.integer({ min: -19, max: 2 }), fc.constantFrom('', '5', '50', '500'))
+      .map(([negative, c, e, tie]) => `${negative ? '-' : ''}${String(c).slice(0, 15 - tie.length)}${tie}e${e}`);
+    fc.assert(fc.property(result, fc.integer({ min: 0, max: 4 }), (t, dp) => {
+      expect(Object.is(new D(t).toRoundedNumber(dp), new Ref(t).toDecimalPlaces(dp).toNumber())).toBe(true);
     }), RUNS);
     fc.assert(fc.property(text, (t) => {
       same(new D(t).round(), new Ref(t).round());
