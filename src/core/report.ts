@@ -1,17 +1,17 @@
 import { z } from 'zod';
 import { round } from './decimal.ts';
-import { SPECIES, SPECIES_IDS, isCharged, type SpeciesId } from './species.ts';
+import { SPECIES, SPECIES_IDS, isCharged, speciesRecord, type SpeciesId } from './species.ts';
 import { lineShare, perKgOf, perLitreOf, mmHgPerMOsmPerL, type Bag, type BagLine } from './compute/bag.ts';
 import { ruleFor, SEVERITIES, type Policy } from './policy.ts';
 import type { Catalog } from './catalog.ts';
 import type { Finding, Verdict } from './findings.ts';
-import { AGE_GROUPS, ROUTES } from './order.ts';
+import { AGE_GROUPS, ROUTES, type BaseUnit } from './order.ts';
 import { as, mmolToMEq } from './units.ts';
 import { predictedOsmolalityField, predictedOsmolalityReportSchema } from './compute/osmolality.ts';
 import { suggestionReportSchema } from './solve/report.ts';
 
 const num = z.number().refine(Number.isFinite, 'must be a finite number');
-const speciesRecord = z.record(z.enum(SPECIES_IDS), num);
+const speciesNumbers = z.record(z.enum(SPECIES_IDS), num);
 const amountUnit = z.object({ amount: num, unit: z.string() });
 
 /** The report v1 (what the engine returns; `osmocount check --json` prints it). */
@@ -54,10 +54,10 @@ export const reportSchema = z.object({
     peripheralLimit: num.nullable(),
   }),
   totals: z.object({
-    mmolPerL: speciesRecord,
-    mEqPerL: speciesRecord,
-    mmolPerDay: speciesRecord,
-    mmolPerKgPerDay: speciesRecord,
+    mmolPerL: speciesNumbers,
+    mEqPerL: speciesNumbers,
+    mmolPerDay: speciesNumbers,
+    mmolPerKgPerDay: speciesNumbers,
     dextrosePercent: num, aminoAcidPercent: num, lipidPercent: num,
     grams: z.object({ dextrose: num, aminoAcids: num, lipid: num }),
     gramsPerKg: z.object({ dextrose: num, aminoAcids: num, lipid: num }),
@@ -99,23 +99,27 @@ type SpeciesTotals = Pick<Report['totals'], 'mmolPerL' | 'mEqPerL' | 'mmolPerDay
 
 /** Every species' totals, each rounded once; a species the bag does not hold is 0 throughout. */
 function speciesTotals(bag: Bag): SpeciesTotals {
-  const empty = () => ({}) as Record<SpeciesId, number>;
-  const out: SpeciesTotals = { mmolPerL: empty(), mEqPerL: empty(), mmolPerDay: empty(), mmolPerKgPerDay: empty() };
-  for (const s of SPECIES_IDS) {
+  const n = SPECIES_IDS.length;
+  const perL = new Array<number>(n).fill(0);
+  const mEqPerL = new Array<number>(n).fill(0);
+  const perDay = new Array<number>(n).fill(0);
+  const perKg = new Array<number>(n).fill(0);
+  for (let k = 0; k < n; k++) {
+    const s = SPECIES_IDS[k]!;
     const mmol = bag.speciesMmol[s];
-    if (mmol.isZero()) {
-      out.mmolPerL[s] = 0; out.mEqPerL[s] = 0; out.mmolPerDay[s] = 0; out.mmolPerKgPerDay[s] = 0;
-      continue;
-    }
-    const perL = perLitreOf(bag, mmol);
-    out.mmolPerL[s] = round(perL, 2);
+    if (mmol.isZero()) continue;
+    const litre = perLitreOf(bag, mmol);
+    perL[k] = round(litre, 2);
     // A monovalent ion's mEq is its mmol (× 1 changes no digit).
-    out.mEqPerL[s] = !isCharged(s) ? 0 : Math.abs(SPECIES[s].charge ?? 0) === 1 ? out.mmolPerL[s] : round(mmolToMEq(s, as(perL, 'mmol')), 2);
-    out.mmolPerDay[s] = round(mmol, 2);
-    out.mmolPerKgPerDay[s] = round(perKgOf(bag, mmol), 3);
+    mEqPerL[k] = !isCharged(s) ? 0 : Math.abs(SPECIES[s].charge ?? 0) === 1 ? perL[k]! : round(mmolToMEq(s, as(litre, 'mmol')), 2);
+    perDay[k] = round(mmol, 2);
+    perKg[k] = round(perKgOf(bag, mmol), 3);
   }
-  return out;
+  return { mmolPerL: speciesRecord(perL), mEqPerL: speciesRecord(mEqPerL), mmolPerDay: speciesRecord(perDay), mmolPerKgPerDay: speciesRecord(perKg) };
 }
+
+// "mEq" → "mEq/kg": the per-kg unit of each base unit, written once.
+const PER_KG_UNIT: Readonly<Record<BaseUnit, string>> = { mL: 'mL/kg', g: 'g/kg', mEq: 'mEq/kg', mmol: 'mmol/kg' };
 
 /** One line of the report; a figure shared by two fields is rounded once. */
 function reportLine(bag: Bag, l: BagLine): Report['lines'][number] {
@@ -140,7 +144,7 @@ function reportLine(bag: Bag, l: BagLine): Report['lines'][number] {
     unit: line.kind === 'amount' ? line.unit : null,
     species: line.kind === 'amount' ? line.species : null,
     perDay,
-    perKgPerDay: l.perDay ? { amount: round(l.perDay.amount.div(w), 4), unit: `${l.perDay.unit}/kg` } : null,
+    perKgPerDay: l.perDay ? { amount: round(l.perDay.amount.div(w), 4), unit: PER_KG_UNIT[l.perDay.unit] } : null,
     volumeMl: round(l.volumeMl, 2),
     mOsm: bag.osmolarity.method === 'particle' ? particleMOsm : labelMOsm,
     particleMOsm,

@@ -7,6 +7,18 @@ export const SPECIES_IDS = [
 ] as const;
 export type SpeciesId = (typeof SPECIES_IDS)[number];
 
+/**
+ * A record of one value per species, in SPECIES_IDS order, from values listed in that order. Written as
+ * one literal so every record has the same shape, built in one step (a record grown key by key is slower
+ * to build and to read).
+ */
+export function speciesRecord<T>(v: readonly T[]): Record<SpeciesId, T> {
+  return {
+    Na: v[0]!, K: v[1]!, Ca: v[2]!, Mg: v[3]!, Cl: v[4]!, acetate: v[5]!, gluconate: v[6]!, lactate: v[7]!, sulfate: v[8]!,
+    phosphate: v[9]!, glycerophosphate: v[10]!, glycerol: v[11]!,
+  };
+}
+
 /** One row of the species table. */
 export interface SpeciesInfo {
   id: SpeciesId;

@@ -1,5 +1,5 @@
-import { D, ZERO, THOUSAND, sum } from '../decimal.ts';
-import { SPECIES_IDS, type SpeciesId } from '../species.ts';
+import { D, ZERO, THOUSAND } from '../decimal.ts';
+import { SPECIES_IDS, speciesRecord, type SpeciesId } from '../species.ts';
 import type { Order, OrderLine, BaseUnit } from '../order.ts';
 import type { Policy } from '../policy.ts';
 import type { Product } from '../catalog.ts';
@@ -123,22 +123,28 @@ function lineAluminumMcg(product: Product, stock: StockFigures, volumeMl: D): D 
  */
 export function computeBag(order: Order, policy: Policy): Bag {
   const weight = order.patient.weightKg;
-  const amountLines: BagLine[] = [];
+  // The lines in order; the fill line's volume needs the sum of the others, so it is put in its place after.
+  const lines: BagLine[] = [];
   let fillLine: OrderLine | null = null;
+  let fillAt = 0;
+  let addedVolumeMl = ZERO;
   for (const line of order.lines) {
-    if (line.kind === 'fill') { fillLine = line; continue; }
+    if (line.kind === 'fill') {
+      fillLine = line;
+      fillAt = lines.length;
+      continue;
+    }
     const perDay = perDayAmount(line, weight);
-    amountLines.push(makeLine(line, lineVolumeMl(line, weight, perDay), perDay));
+    const bagLine = makeLine(line, lineVolumeMl(line, weight, perDay), perDay);
+    addedVolumeMl = addedVolumeMl.plus(bagLine.volumeMl);
+    lines.push(bagLine);
   }
-  const addedVolumeMl = sum(amountLines.map((l) => l.volumeMl));
   let finalVolumeMl = addedVolumeMl;
-  const lines = [...amountLines];
   if (fillLine && order.volumeMl) {
     const fillVolume = D.max(order.volumeMl.minus(addedVolumeMl), ZERO);
-    lines.push(makeLine(fillLine, fillVolume, null));
+    lines.splice(fillAt, 0, makeLine(fillLine, fillVolume, null));
     finalVolumeMl = D.max(order.volumeMl, addedVolumeMl);
   }
-  lines.sort((a, b) => a.line.index - b.line.index);
 
   // Running totals in plain locals and an array by species index (records keyed by a variable are slow
   // to write); the species record is built once at the end.
@@ -179,8 +185,7 @@ export function computeBag(order: Order, policy: Policy): Bag {
     label = label.plus(l.labelMOsm);
     aluminum = aluminum.plus(l.aluminumMcg);
   }
-  const speciesMmol = {} as Record<SpeciesId, D>;
-  for (let k = 0; k < SPECIES_IDS.length; k++) speciesMmol[SPECIES_IDS[k]!] = mmol[k]!;
+  const speciesMmol = speciesRecord(mmol);
   const grams = { dextrose: dextroseG, aminoAcids: aminoAcidsG, lipid: lipidG };
   const kcal = { dextrose: dextroseKcal, aminoAcids: aminoAcidsKcal, lipid: lipidKcal, other: otherKcal };
   const particleOsm = perLitre(particle, finalVolumeMl);
@@ -201,7 +206,7 @@ export function computeBag(order: Order, policy: Policy): Bag {
       aminoAcids: percentOf(grams.aminoAcids, finalVolumeMl),
       lipid: percentOf(grams.lipid, finalVolumeMl),
     },
-    kcal: { ...kcal, total: sum(Object.values(kcal)), nonProtein },
+    kcal: { ...kcal, total: kcal.dextrose.plus(kcal.aminoAcids).plus(kcal.lipid).plus(kcal.other), nonProtein },
     nitrogenG,
     npcToN: nitrogenG.isZero() ? null : nonProtein.div(nitrogenG),
     girMgPerKgPerMin: grams.dextrose.times(THOUSAND).div(weight.times(minutes)),
