@@ -19,19 +19,34 @@ export function snapshot(c: Checked, policy: Policy): Snapshot {
   };
 }
 
-function key(f: Finding): string {
-  return [f.code, f.screen ?? '', f.nutrient ?? '', f.severity].join('|');
+/** Whether two findings are the same warning or hold: same code, screen, nutrient and severity. */
+function sameKind(a: Finding, b: Finding): boolean {
+  return a.code === b.code && a.severity === b.severity && (a.screen ?? '') === (b.screen ?? '') && (a.nutrient ?? '') === (b.nutrient ?? '');
+}
+
+/** The warnings and holds of `from` with no finding of the same kind among the warnings and holds of `among`. */
+function seriousNotIn(from: readonly Finding[], among: readonly Finding[]): Finding[] {
+  const out: Finding[] = [];
+  for (const f of from) {
+    if (f.severity === 'info') continue;
+    let found = false;
+    for (const g of among) {
+      if (g.severity !== 'info' && sameKind(f, g)) { found = true; break; }
+    }
+    if (!found) out.push(f);
+  }
+  return out;
 }
 
 /** Warnings and holds present after but not before (appear), and before but not after (disappear). */
 export function findingChanges(before: readonly Finding[], after: readonly Finding[]): { appears: Finding[]; disappears: Finding[] } {
-  const serious = (f: Finding) => f.severity !== 'info';
-  const beforeKeys = new Set(before.filter(serious).map(key));
-  const afterKeys = new Set(after.filter(serious).map(key));
-  return {
-    appears: after.filter((f) => serious(f) && !beforeKeys.has(key(f))),
-    disappears: before.filter((f) => serious(f) && !afterKeys.has(key(f))),
-  };
+  return { appears: seriousNotIn(after, before), disappears: seriousNotIn(before, after) };
+}
+
+/** Whether any finding is the peripheral osmolarity screen's. */
+export function failsOsmolarity(findings: readonly Finding[]): boolean {
+  for (const f of findings) if (f.code === 'osmolarity-peripheral') return true;
+  return false;
 }
 
 /** A proposal from the current evaluation and the re-checked modified order. */
@@ -40,8 +55,9 @@ export function propose(kind: SuggestionKind, message: string, change: Change, c
     kind, status: 'proposal', message, change, order: next.order,
     before: snapshot(current, policy),
     after: snapshot(next, policy),
-    passesOsmolarity: !next.findings.some((f) => f.code === 'osmolarity-peripheral'),
-    ...findingChanges(current.findings, next.findings),
+    passesOsmolarity: !failsOsmolarity(next.findings),
+    appears: seriousNotIn(next.findings, current.findings),
+    disappears: seriousNotIn(current.findings, next.findings),
     notes,
   };
 }
