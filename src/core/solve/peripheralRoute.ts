@@ -19,8 +19,9 @@ export function peripheralRouteSuggestion(current: Checked, policy: Policy, eval
   const osm = current.bag.osmolarity.reported;
   if (next === null || failsOsmolarity(next.findings)) {
     return {
-      kind: 'peripheral-route', status: 'unavailable', notes: [],
+      kind: 'peripheral-route', status: 'unavailable',
       message: `Needs the central line: reported osmolarity ${fmt(osm, 1)} mOsm/L is over the peripheral limit of ${limit.toString()} by ${fmt(osm.minus(limit), 1)}.`,
+      notes: [],
     };
   }
   const p = propose('peripheral-route', '', { field: 'route', from: 'central', to: 'peripheral' }, current, next, policy);
