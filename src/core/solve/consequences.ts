@@ -24,23 +24,31 @@ function sameKind(a: Finding, b: Finding): boolean {
   return a.code === b.code && a.severity === b.severity && (a.screen ?? '') === (b.screen ?? '') && (a.nutrient ?? '') === (b.nutrient ?? '');
 }
 
-/** The warnings and holds of `from` with no finding of the same kind among the warnings and holds of `among`. */
-function seriousNotIn(from: readonly Finding[], among: readonly Finding[]): Finding[] {
+/** The warnings and holds among findings (information left out). */
+function serious(findings: readonly Finding[]): Finding[] {
   const out: Finding[] = [];
-  for (const f of from) {
-    if (f.severity === 'info') continue;
-    let found = false;
-    for (const g of among) {
-      if (g.severity !== 'info' && sameKind(f, g)) { found = true; break; }
-    }
-    if (!found) out.push(f);
-  }
+  for (const f of findings) if (f.severity !== 'info') out.push(f);
+  return out;
+}
+
+/** Whether a list holds a finding of the same kind as `f`. */
+function hasKind(list: readonly Finding[], f: Finding): boolean {
+  for (const g of list) if (sameKind(f, g)) return true;
+  return false;
+}
+
+/** The findings of `from` with no finding of the same kind in `among`. */
+function notIn(from: readonly Finding[], among: readonly Finding[]): Finding[] {
+  const out: Finding[] = [];
+  for (const f of from) if (!hasKind(among, f)) out.push(f);
   return out;
 }
 
 /** Warnings and holds present after but not before (appear), and before but not after (disappear). */
 export function findingChanges(before: readonly Finding[], after: readonly Finding[]): { appears: Finding[]; disappears: Finding[] } {
-  return { appears: seriousNotIn(after, before), disappears: seriousNotIn(before, after) };
+  const b = serious(before);
+  const a = serious(after);
+  return { appears: notIn(a, b), disappears: notIn(b, a) };
 }
 
 /** Whether any finding is the peripheral osmolarity screen's. */
@@ -51,13 +59,14 @@ export function failsOsmolarity(findings: readonly Finding[]): boolean {
 
 /** A proposal from the current evaluation and the re-checked modified order. */
 export function propose(kind: SuggestionKind, message: string, change: Change, current: Checked, next: Checked, policy: Policy, notes: string[] = []): Proposal {
+  const changes = findingChanges(current.findings, next.findings);
   return {
     kind, status: 'proposal', message, change, order: next.order,
     before: snapshot(current, policy),
     after: snapshot(next, policy),
     passesOsmolarity: !failsOsmolarity(next.findings),
-    appears: seriousNotIn(next.findings, current.findings),
-    disappears: seriousNotIn(current.findings, next.findings),
+    appears: changes.appears,
+    disappears: changes.disappears,
     notes,
   };
 }
