@@ -19,6 +19,9 @@ export interface EvaluateOptions {
   suggestions?: boolean;
 }
 
+/** The positions in CHECKS of the checks that read the route (ROUTE_CHECKS). */
+const ROUTE_CHECK_POSITIONS: readonly number[] = CHECKS.flatMap((check, i) => (ROUTE_CHECKS.has(check) ? [i] : []));
+
 /** Compute a validated order's bag, run every check, look for suggestions, and build its report. */
 export function evaluateOrder(order: Order, catalog: Catalog, policy: Policy, options: EvaluateOptions = {}): Evaluation {
   const bag = computeBag(order, policy);
@@ -31,9 +34,6 @@ export function evaluateOrder(order: Order, catalog: Catalog, policy: Policy, op
     : suggest({ order, bag, findings, verdict }, catalog, policy, (modified, change) => recheck(modified, change === 'route' ? byCheck : null, policy));
   return makeEvaluation({ order, bag, findings, verdict, suggestions }, catalog, policy);
 }
-
-/** The positions in CHECKS of the checks that read the route (ROUTE_CHECKS). */
-const ROUTE_CHECK_POSITIONS: readonly number[] = CHECKS.flatMap((check, i) => (ROUTE_CHECKS.has(check) ? [i] : []));
 
 /** Each check's findings on a bag, in CHECKS order. */
 function runChecks(bag: Bag, policy: Policy): Finding[][] {
