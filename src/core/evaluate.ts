@@ -9,7 +9,7 @@ import type { Policy } from './policy.ts';
 import type { Result } from './problems.ts';
 import { compoundOrder, hasIons } from './compound/compoundOrder.ts';
 import { withIonFindings } from './compound/ionFindings.ts';
-import { suggest, type Evaluate } from './solve/index.ts';
+import { suggest, type Checked } from './solve/index.ts';
 
 export type { Evaluation } from './evaluation.ts';
 
@@ -19,29 +19,49 @@ export interface EvaluateOptions {
   suggestions?: boolean;
 }
 
+/** The positions in CHECKS of the checks that read the route (ROUTE_CHECKS). */
+const ROUTE_CHECK_POSITIONS: readonly number[] = CHECKS.flatMap((check, i) => (ROUTE_CHECKS.has(check) ? [i] : []));
+
 /** Compute a validated order's bag, run every check, look for suggestions, and build its report. */
 export function evaluateOrder(order: Order, catalog: Catalog, policy: Policy, options: EvaluateOptions = {}): Evaluation {
   const bag = computeBag(order, policy);
-  return evaluated(bag, CHECKS.map((check) => check(bag, policy)), catalog, policy, options);
+  const byCheck = runChecks(bag, policy);
+  const findings = flatten(byCheck);
+  const verdict = verdictOf(findings);
+  const suggestions = options.suggestions === false
+    ? []
+    // The solver's re-checks: a route change keeps this bag and the findings of the checks that do not read the route.
+    : suggest({ order, bag, findings, verdict }, catalog, policy, (modified, change) => recheck(modified, change === 'route' ? byCheck : null, policy));
+  return makeEvaluation({ order, bag, findings, verdict, suggestions }, catalog, policy);
+}
+
+/** Each check's findings on a bag, in CHECKS order. */
+function runChecks(bag: Bag, policy: Policy): Finding[][] {
+  const byCheck: Finding[][] = [];
+  for (const check of CHECKS) byCheck.push(check(bag, policy));
+  return byCheck;
+}
+
+/** Each check's findings, one list after another (what `byCheck.flat()` gives, without its generic walk). */
+function flatten(byCheck: readonly Finding[][]): Finding[] {
+  const findings: Finding[] = [];
+  for (const list of byCheck) for (const f of list) findings.push(f);
+  return findings;
 }
 
 /**
- * The evaluation of a bag whose checks have run (`byCheck`: each check's findings, in CHECKS order).
- * Its solver re-checks a route change on the same bag (the bag does not depend on the route),
- * running again only the checks that read the route.
+ * A bag the solver computed, checked without suggestions. `evaluated`: the findings by check of the
+ * evaluated bag when this one is that bag on another route; only the checks that read the route run again.
  */
-function evaluated(bag: Bag, byCheck: readonly Finding[][], catalog: Catalog, policy: Policy, options: EvaluateOptions): Evaluation {
-  const order = bag.order;
-  const findings = byCheck.flat();
-  const verdict = verdictOf(findings);
-  const recheck: Evaluate = (modified, change) => {
-    if (change !== 'route') return evaluateOrder(modified, catalog, policy, { suggestions: false });
-    const rerouted: Bag = { ...bag, order: modified };
-    const again = CHECKS.map((check, i) => (ROUTE_CHECKS.has(check) ? check(rerouted, policy) : byCheck[i] ?? []));
-    return evaluated(rerouted, again, catalog, policy, { suggestions: false });
-  };
-  const suggestions = options.suggestions === false ? [] : suggest({ order, bag, findings, verdict }, catalog, policy, recheck);
-  return makeEvaluation({ order, bag, findings, verdict, suggestions }, catalog, policy);
+function recheck(bag: Bag, evaluated: readonly Finding[][] | null, policy: Policy): Checked {
+  let byCheck: Finding[][];
+  if (evaluated === null) byCheck = runChecks(bag, policy);
+  else {
+    byCheck = evaluated.slice();
+    for (const i of ROUTE_CHECK_POSITIONS) byCheck[i] = CHECKS[i]!(bag, policy);
+  }
+  const findings = flatten(byCheck);
+  return { order: bag.order, bag, findings, verdict: verdictOf(findings) };
 }
 
 /**

@@ -19,29 +19,54 @@ export function snapshot(c: Checked, policy: Policy): Snapshot {
   };
 }
 
-function key(f: Finding): string {
-  return [f.code, f.screen ?? '', f.nutrient ?? '', f.severity].join('|');
+/** Whether two findings are the same warning or hold: same code, screen, nutrient and severity. */
+function sameKind(a: Finding, b: Finding): boolean {
+  return a.code === b.code && a.severity === b.severity && (a.screen ?? '') === (b.screen ?? '') && (a.nutrient ?? '') === (b.nutrient ?? '');
+}
+
+/** The warnings and holds among findings (information left out). */
+function serious(findings: readonly Finding[]): Finding[] {
+  const out: Finding[] = [];
+  for (const f of findings) if (f.severity !== 'info') out.push(f);
+  return out;
+}
+
+/** Whether a list holds a finding of the same kind as `f`. */
+function hasKind(list: readonly Finding[], f: Finding): boolean {
+  for (const g of list) if (sameKind(f, g)) return true;
+  return false;
+}
+
+/** The findings of `from` with no finding of the same kind in `among`. */
+function notIn(from: readonly Finding[], among: readonly Finding[]): Finding[] {
+  const out: Finding[] = [];
+  for (const f of from) if (!hasKind(among, f)) out.push(f);
+  return out;
 }
 
 /** Warnings and holds present after but not before (appear), and before but not after (disappear). */
 export function findingChanges(before: readonly Finding[], after: readonly Finding[]): { appears: Finding[]; disappears: Finding[] } {
-  const serious = (f: Finding) => f.severity !== 'info';
-  const beforeKeys = new Set(before.filter(serious).map(key));
-  const afterKeys = new Set(after.filter(serious).map(key));
-  return {
-    appears: after.filter((f) => serious(f) && !beforeKeys.has(key(f))),
-    disappears: before.filter((f) => serious(f) && !afterKeys.has(key(f))),
-  };
+  const b = serious(before);
+  const a = serious(after);
+  return { appears: notIn(a, b), disappears: notIn(b, a) };
+}
+
+/** Whether any finding is the peripheral osmolarity screen's. */
+export function failsOsmolarity(findings: readonly Finding[]): boolean {
+  for (const f of findings) if (f.code === 'osmolarity-peripheral') return true;
+  return false;
 }
 
 /** A proposal from the current evaluation and the re-checked modified order. */
 export function propose(kind: SuggestionKind, message: string, change: Change, current: Checked, next: Checked, policy: Policy, notes: string[] = []): Proposal {
+  const changes = findingChanges(current.findings, next.findings);
   return {
     kind, status: 'proposal', message, change, order: next.order,
     before: snapshot(current, policy),
     after: snapshot(next, policy),
-    passesOsmolarity: !next.findings.some((f) => f.code === 'osmolarity-peripheral'),
-    ...findingChanges(current.findings, next.findings),
+    passesOsmolarity: !failsOsmolarity(next.findings),
+    appears: changes.appears,
+    disappears: changes.disappears,
     notes,
   };
 }

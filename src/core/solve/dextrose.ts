@@ -67,9 +67,13 @@ export function dextroseSuggestion(current: Checked, policy: Policy, limit: D, e
   const step = policy.solver.dextroseStep[line.unit as keyof Policy['solver']['dextroseStep']] ?? null;
   if (!step) return unavailable(`The policy has no dextrose step for a line in ${line.unit}.`);
   let amount = floorToStep(amountFor(line, exact, w), step);
-  for (let i = 0; i < GUARD_STEPS && amount.gt(0) && computeBag(withAmount(amount), policy).osmolarity.reported.gt(limit); i++) amount = amount.minus(step);
-  if (!amount.gt(0)) return unavailable(`Rounded down to ${step.toString()} ${line.unit}, no dextrose is left: lower other lines, raise the volume or use a central line.`);
-  const next = evaluate(withAmount(amount));
+  let proposed = amount.gt(0) ? computeBag(withAmount(amount), policy) : null;
+  for (let i = 0; i < GUARD_STEPS && proposed && proposed.osmolarity.reported.gt(limit); i++) {
+    amount = amount.minus(step);
+    proposed = amount.gt(0) ? computeBag(withAmount(amount), policy) : null;
+  }
+  if (!proposed) return unavailable(`Rounded down to ${step.toString()} ${line.unit}, no dextrose is left: lower other lines, raise the volume or use a central line.`);
+  const next = evaluate(proposed);
   const notes: string[] = [];
   if (!fill) notes.push('The order has no fill line: the bag shrinks by the dextrose volume removed.');
   const gramsTo = gramsFor(line, amount, w);

@@ -32,14 +32,20 @@ export function finalVolumeSuggestion(current: Checked, catalog: Catalog, policy
   });
   const x0 = bag.finalVolumeMl;
   const x1 = x0.plus(1000);
-  const found = crossings(policy, limit, x0, computeBag(withVolume(x0), policy), x1, computeBag(withVolume(x1), policy));
+  // With a fill line and the ordered volume as the final one, the bag at x0 is the evaluated bag.
+  const bag0 = fill && order.volumeMl?.eq(x0) ? bag : computeBag(withVolume(x0), policy);
+  const found = crossings(policy, limit, x0, bag0, x1, computeBag(withVolume(x1), policy));
   if (!found || found.some((c) => !c.falling)) {
     return { kind: 'final-volume', status: 'unavailable', message: `More volume cannot bring this bag under ${limit.toString()} mOsm/L: the fill stock (${fillProduct.name}) is itself at or above the limit.`, notes: [] };
   }
   const step = volumeStepFor(policy, order.patient.ageGroup);
   let volume = ceilToStep(D.max(...found.map((c) => c.x)), step);
-  for (let i = 0; i < GUARD_STEPS && computeBag(withVolume(volume), policy).osmolarity.reported.gt(limit); i++) volume = volume.plus(step);
-  const next = evaluate(withVolume(volume));
+  let proposed = computeBag(withVolume(volume), policy);
+  for (let i = 0; i < GUARD_STEPS && proposed.osmolarity.reported.gt(limit); i++) {
+    volume = volume.plus(step);
+    proposed = computeBag(withVolume(volume), policy);
+  }
+  const next = evaluate(proposed);
   const notes: string[] = [];
   if (!fill) notes.push(`The order has no fill line: a volume change needs one, so this proposal adds ${fillProduct.name} to make up the volume.`);
   const p = propose('final-volume', '', { field: 'volumeMl', from: order.volumeMl, to: volume, unit: 'mL', addsFillLine: fill ? null : fillProduct.id }, current, next, policy, notes);

@@ -3,6 +3,7 @@ import type { Catalog } from '../catalog.ts';
 import { finalVolumeSuggestion } from './finalVolume.ts';
 import { dextroseSuggestion } from './dextrose.ts';
 import { peripheralRouteSuggestion } from './peripheralRoute.ts';
+import { failsOsmolarity } from './consequences.ts';
 import type { Checked, Evaluate, Suggestion } from './suggestion.ts';
 
 export type { Suggestion, Proposal, Unavailable, Change, Snapshot, Checked, Evaluate } from './suggestion.ts';
@@ -19,8 +20,10 @@ export function suggest(current: Checked, catalog: Catalog, policy: Policy, eval
     const s = peripheralRouteSuggestion(current, policy, evaluate);
     return s ? [s] : [];
   }
+  // A peripheral bag gets proposals only when it fails the osmolarity screen (most do not).
+  if (!failsOsmolarity(current.findings)) return [];
   const limit = ruleFor(policy, 'osmolarity-peripheral', order.patient.ageGroup)?.max ?? null;
-  if (!limit || !current.findings.some((f) => f.code === 'osmolarity-peripheral')) return [];
+  if (!limit) return [];
   const out: Suggestion[] = [finalVolumeSuggestion(current, catalog, policy, limit, evaluate)];
   const dextrose = dextroseSuggestion(current, policy, limit, evaluate);
   if (dextrose) out.push(dextrose);

@@ -1,6 +1,6 @@
 import { fmt } from '../format.ts';
 import { ruleFor, type Policy } from '../policy.ts';
-import { propose, appearsText } from './consequences.ts';
+import { propose, appearsText, failsOsmolarity } from './consequences.ts';
 import type { Checked, Evaluate, Suggestion } from './suggestion.ts';
 
 /**
@@ -15,12 +15,13 @@ export function peripheralRouteSuggestion(current: Checked, policy: Policy, eval
   if (!limit) return { kind: 'peripheral-route', status: 'unavailable', message: 'The policy sets no peripheral osmolarity limit for this age group.', notes: [] };
   // The bag does not depend on the route: over the limit now means over it peripherally, with no re-check.
   const over = current.bag.osmolarity.reported.gt(limit);
-  const next = over ? null : evaluate({ ...order, route: 'peripheral' }, 'route');
+  const next = over ? null : evaluate({ ...current.bag, order: { ...order, route: 'peripheral' } }, 'route');
   const osm = current.bag.osmolarity.reported;
-  if (next === null || next.findings.some((f) => f.code === 'osmolarity-peripheral')) {
+  if (next === null || failsOsmolarity(next.findings)) {
     return {
-      kind: 'peripheral-route', status: 'unavailable', notes: [],
+      kind: 'peripheral-route', status: 'unavailable',
       message: `Needs the central line: reported osmolarity ${fmt(osm, 1)} mOsm/L is over the peripheral limit of ${limit.toString()} by ${fmt(osm.minus(limit), 1)}.`,
+      notes: [],
     };
   }
   const p = propose('peripheral-route', '', { field: 'route', from: 'central', to: 'peripheral' }, current, next, policy);

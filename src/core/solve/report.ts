@@ -71,6 +71,13 @@ function snapshotReport(s: Snapshot): z.infer<typeof snapshotSchema> {
   };
 }
 
+/** Whether two snapshots hold the very same figures (a route change keeps the bag's): only the verdict may differ. */
+function sameFigures(a: Snapshot, b: Snapshot): boolean {
+  return a.osmolarity === b.osmolarity && a.osmolarityLimit === b.osmolarityLimit && a.volumeMl === b.volumeMl
+    && a.fluidMlPerKgPerDay === b.fluidMlPerKgPerDay && a.kcal === b.kcal && a.kcalPerKgPerDay === b.kcalPerKgPerDay
+    && a.girMgPerKgPerMin === b.girMgPerKgPerMin && a.dextroseG === b.dextroseG;
+}
+
 function changeReport(c: Change): z.infer<typeof changeSchema> {
   switch (c.field) {
     case 'volumeMl': return { field: 'volumeMl', from: c.from ? round(c.from, 2) : null, to: round(c.to, 2), unit: 'mL', addsFillLine: c.addsFillLine };
@@ -89,11 +96,12 @@ function findingSummary(f: Finding): z.infer<typeof findingSummarySchema> {
 /** A suggestion rounded for the report, once, at this edge. */
 export function suggestionReport(s: Suggestion): SuggestionReport {
   if (s.status === 'unavailable') return { kind: s.kind, status: 'unavailable', message: s.message, notes: s.notes };
+  const before = snapshotReport(s.before);
   return {
     kind: s.kind, status: 'proposal', message: s.message,
     change: changeReport(s.change),
-    before: snapshotReport(s.before),
-    after: snapshotReport(s.after),
+    before,
+    after: sameFigures(s.before, s.after) ? { ...before, verdict: s.after.verdict } : snapshotReport(s.after),
     passesOsmolarity: s.passesOsmolarity,
     findingsAppear: s.appears.map(findingSummary),
     findingsDisappear: s.disappears.map(findingSummary),

@@ -64,8 +64,9 @@ export interface Checked {
 }
 
 /**
- * Re-checks a modified order through every check (the engine's evaluateOrder, without suggestions).
- * `change: 'route'` says the order differs from the evaluated one in its route alone: the engine then
- * keeps the bag (it does not depend on the route) and the findings of the checks that do not read it.
+ * Runs every check on a bag the solver computed for a modified order (the engine's checks, without
+ * suggestions). `change: 'route'` says the bag is the evaluated one with its order on another route
+ * (the bag does not depend on the route): the engine then runs again only the checks that read the
+ * route and keeps the others' findings.
  */
-export type Evaluate = (order: Order, change?: 'route') => Checked;
+export type Evaluate = (bag: Bag, change?: 'route') => Checked;

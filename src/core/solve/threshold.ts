@@ -1,4 +1,4 @@
-import { D, sum } from '../decimal.ts';
+import type { D } from '../decimal.ts';
 import type { Bag } from '../compute/bag.ts';
 import type { Policy } from '../policy.ts';
 
@@ -9,8 +9,9 @@ export function methodsOf(policy: Policy): Method[] {
   return policy.reportedOsmolarity === 'higher' ? ['particle', 'labelSum'] : [policy.reportedOsmolarity];
 }
 
+/** The bag's mOsm by one method (the bag's own sum of its lines). */
 function totalMOsm(bag: Bag, method: Method): D {
-  return sum(bag.lines.map((l) => (method === 'particle' ? l.particleMOsm : l.labelMOsm)));
+  return method === 'particle' ? bag.totalMOsm.particle : bag.totalMOsm.labelSum;
 }
 
 /**
