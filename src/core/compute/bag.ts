@@ -68,7 +68,7 @@ export interface Bag {
    * Figures of this bag divided once and kept (see perKgOf, perLitreOf), with the weight and volume they
    * were divided by: a copy of the bag on another route shares them, a copy with another weight does not.
    */
-  readonly derived: { readonly weightKg: D; readonly finalVolumeMl: D; readonly perKg: Map<D, D>; readonly perLitre: Map<D, D> };
+  readonly derived: { readonly weightKg: D; readonly finalVolumeMl: D; readonly perKg: Memo; readonly perLitre: Memo };
 }
 
 // Gas constant in L·mmHg/(mol·K): 8.314462618 J/(mol·K) ÷ 133.322387415 Pa/mmHg × 1000 L/m³ (CODATA 2018; exact SI definitions).
@@ -215,31 +215,40 @@ export function computeBag(order: Order, policy: Policy): Bag {
     osmoticPressureMmHg: reported.times(mmHgPerMOsmPerL(policy.reference.osmoticPressureTemperatureC.value)),
     aluminumMcg: aluminum,
     aluminumMcgPerKgPerDay: aluminum.div(weight),
-    derived: { weightKg: weight, finalVolumeMl, perKg: new Map(), perLitre: new Map() },
+    derived: { weightKg: weight, finalVolumeMl, perKg: { keys: [], values: [] }, perLitre: { keys: [], values: [] } },
   };
 }
 
+/**
+ * Figures of one bag worked out once: the decimal divided (keys[i], compared by identity: decimals are
+ * immutable) and the result (values[i]). A bag holds a few dozen; a scan of two short arrays is cheaper
+ * to build and to search than a Map.
+ */
+export interface Memo { readonly keys: D[]; readonly values: D[] }
+
 // Figures that several checks and the report read (a species per litre, a dose per kg), each worked out
-// once per bag: kept in the bag's own maps, keyed by the decimal divided (both immutable values).
-function memo(known: Map<D, D>, x: D, compute: () => D): D {
-  let value = known.get(x);
-  if (!value) {
-    value = compute();
-    known.set(x, value);
-  }
+// once per bag and kept in the bag's own memo.
+function memo(known: Memo, x: D, compute: (x: D, by: D) => D, by: D): D {
+  const keys = known.keys;
+  for (let i = keys.length - 1; i >= 0; i--) if (keys[i] === x) return known.values[i]!;
+  const value = compute(x, by);
+  keys.push(x);
+  known.values.push(value);
   return value;
 }
+
+const divide = (x: D, by: D): D => x.div(by);
 
 /** A figure of the bag per kg of dosing weight (x ÷ weight), worked out once per bag and figure. */
 export function perKgOf(bag: Bag, x: D): D {
   const weight = bag.order.patient.weightKg;
-  return bag.derived.weightKg === weight ? memo(bag.derived.perKg, x, () => x.div(weight)) : x.div(weight);
+  return bag.derived.weightKg === weight ? memo(bag.derived.perKg, x, divide, weight) : x.div(weight);
 }
 
 /** A figure of the bag per litre of its final volume (see perLitre), worked out once per bag and figure. */
 export function perLitreOf(bag: Bag, x: D): D {
   const volume = bag.finalVolumeMl;
-  return bag.derived.finalVolumeMl === volume ? memo(bag.derived.perLitre, x, () => perLitre(x, volume)) : perLitre(x, volume);
+  return bag.derived.finalVolumeMl === volume ? memo(bag.derived.perLitre, x, perLitre, volume) : perLitre(x, volume);
 }
 
 /** A line's mOsm under the reported method. */
