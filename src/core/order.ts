@@ -90,8 +90,8 @@ export const orderFileSchema = z.object({
 export type OrderInput = z.input<typeof orderFileSchema>;
 type OrderFile = z.output<typeof orderFileSchema>;
 
-// The plain reader below and orderFileSchema must agree: order.test.ts holds the reader to give the
-// schema's output whenever it reads a file. Change both together.
+// The plain reader (readPlainOrder) and the full path (orderFileSchema, bindLine) must agree: order.test.ts
+// holds the reader to give the full path's order whenever it reads a file. Change both together.
 const readWeight = decimalReader(LIMITS.weightKg);
 const readVolume = decimalReader(LIMITS.volumeMl);
 const readHours = decimalReader(LIMITS.hours);
@@ -108,66 +108,6 @@ function nonEmptyTrimmed(value: unknown): string | null {
   if (typeof value !== 'string') return null;
   const text = value.trim();
   return text.length > 0 ? text : null;
-}
-
-function readLine(input: unknown): LineInput | null {
-  if (!isRecord(input)) return null;
-  const { product, amount, unit, species, fill, note } = input;
-  if (typeof product !== 'string' || product.length === 0) return null;
-  if (!isOptionalString(species) || !isOptionalString(note) || (fill !== undefined && typeof fill !== 'boolean')) return null;
-  if (unit !== undefined && !isOneOf(LINE_UNITS, unit)) return null;
-  const line: LineInput = { product };
-  if (amount !== undefined) {
-    const d = readAmount(amount);
-    if (d === null) return null;
-    line.amount = d;
-  }
-  if (unit !== undefined) line.unit = unit;
-  if (species !== undefined) line.species = species;
-  if (fill !== undefined) line.fill = fill;
-  if (note !== undefined) line.note = note;
-  return line;
-}
-
-/**
- * A well-formed order file read without the schema machinery: the same output as orderFileSchema, or
- * null for anything else (an ion block, a missing or wrong field), which the schema then reads and
- * reports. Most files in a batch are well formed, and this is the cheap way through them.
- */
-export function readPlainOrderFile(input: unknown): OrderFile | null {
-  if (!isRecord(input) || !isRecord(input.patient) || !Array.isArray(input.lines)) return null;
-  const { format, version, patient, route, volumeMl, hours, ions, note } = input;
-  if ((format !== undefined && format !== 'osmocount-order') || (version !== undefined && version !== 1)) return null;
-  if (ions !== undefined || !isOptionalString(note) || !isOneOf(ROUTES, route)) return null;
-  const id = nonEmptyTrimmed(input.id);
-  const patientId = nonEmptyTrimmed(patient.id);
-  const weightKg = readWeight(patient.weightKg);
-  const { name, location, ageGroup } = patient;
-  if (id === null || patientId === null || weightKg === null || !isOneOf(AGE_GROUPS, ageGroup)) return null;
-  if (!isOptionalString(name) || !isOptionalString(location)) return null;
-  const lines: LineInput[] = [];
-  for (const l of input.lines as unknown[]) {
-    const line = readLine(l);
-    if (line === null) return null;
-    lines.push(line);
-  }
-  const out: OrderFile = { id, patient: { id: patientId, weightKg, ageGroup }, route, lines };
-  if (name !== undefined) out.patient.name = name;
-  if (location !== undefined) out.patient.location = location;
-  if (format !== undefined) out.format = format;
-  if (version !== undefined) out.version = version;
-  if (note !== undefined) out.note = note;
-  if (volumeMl !== undefined) {
-    const d = readVolume(volumeMl);
-    if (d === null) return null;
-    out.volumeMl = d;
-  }
-  if (hours !== undefined) {
-    const d = readHours(hours);
-    if (d === null) return null;
-    out.hours = d;
-  }
-  return out;
 }
 
 /** One line of a validated order: a product, and how much of it (or the fill). */
@@ -189,54 +129,130 @@ export interface Order {
 
 type LineInput = z.output<typeof lineSchema>;
 
+/** The path of a line's field in a problem ("lines[3].unit"), written only when a problem names it. */
+function linePath(index: number, field = ''): string {
+  return `lines[${index}]${field}`;
+}
+
 function bindLine(line: LineInput, index: number, catalog: Catalog, problems: Problem[]): OrderLine | null {
-  const at = `lines[${index}]`;
   const product = catalog.byId.get(line.product);
   if (!product) {
-    problems.push({ path: `${at}.product`, message: `unknown product "${line.product}" (not in the catalog)` });
+    problems.push({ path: linePath(index, '.product'), message: `unknown product "${line.product}" (not in the catalog)` });
     return null;
   }
   const note = line.note ?? null;
   if (line.fill) {
-    if (line.amount !== undefined || line.unit !== undefined) problems.push({ path: at, message: 'a fill line takes no amount or unit: it makes up the bag volume' });
+    if (line.amount !== undefined || line.unit !== undefined) problems.push({ path: linePath(index), message: 'a fill line takes no amount or unit: it makes up the bag volume' });
     return { kind: 'fill', index, product, note };
   }
-  if (line.amount === undefined) problems.push({ path: `${at}.amount`, message: 'is required (a number ≥ 0) unless the line is the fill' });
-  if (line.unit === undefined) problems.push({ path: `${at}.unit`, message: `is required unless the line is the fill (one of ${LINE_UNITS.join(', ')})` });
+  if (line.amount === undefined) problems.push({ path: linePath(index, '.amount'), message: 'is required (a number ≥ 0) unless the line is the fill' });
+  if (line.unit === undefined) problems.push({ path: linePath(index, '.unit'), message: `is required unless the line is the fill (one of ${LINE_UNITS.join(', ')})` });
   if (line.amount === undefined || line.unit === undefined) return null;
   const base = baseUnit(line.unit);
   let species: SpeciesId | null = null;
   if (base === 'g' && !NUTRIENT_ROLES.includes(product.role)) {
-    problems.push({ path: `${at}.unit`, message: `"g" counts grams of nutrient; ${product.name} is not a dextrose, amino-acid or lipid stock — use mL, mEq or mmol` });
+    problems.push({ path: linePath(index, '.unit'), message: `"g" counts grams of nutrient; ${product.name} is not a dextrose, amino-acid or lipid stock — use mL, mEq or mmol` });
     return null;
   }
   if (base === 'mEq' || base === 'mmol') {
     const named = line.species ?? product.orderSpecies;
     if (named === null) {
-      problems.push({ path: `${at}.unit`, message: `${product.name} delivers no ion to count in ${base}; use mL` });
+      problems.push({ path: linePath(index, '.unit'), message: `${product.name} delivers no ion to count in ${base}; use mL` });
       return null;
     }
     if (!isSpeciesId(named)) {
-      problems.push({ path: `${at}.species`, message: `unknown species "${named}"` });
+      problems.push({ path: linePath(index, '.species'), message: `unknown species "${named}"` });
       return null;
     }
     if (!product.perMl[named]?.gt(0)) {
-      problems.push({ path: `${at}.species`, message: `${product.name} contains no ${SPECIES[named].label}` });
+      problems.push({ path: linePath(index, '.species'), message: `${product.name} contains no ${SPECIES[named].label}` });
       return null;
     }
     if (base === 'mEq' && isPhosphateSpecies(named)) {
-      problems.push({ path: `${at}.unit`, message: 'phosphate is ordered in mmol, never mEq (its charge depends on pH)' });
+      problems.push({ path: linePath(index, '.unit'), message: 'phosphate is ordered in mmol, never mEq (its charge depends on pH)' });
       return null;
     }
     if (base === 'mEq' && !isCharged(named)) {
-      problems.push({ path: `${at}.unit`, message: `${SPECIES[named].label} has no charge; use mmol` });
+      problems.push({ path: linePath(index, '.unit'), message: `${SPECIES[named].label} has no charge; use mmol` });
       return null;
     }
     species = named;
   } else if (line.species !== undefined) {
-    problems.push({ path: `${at}.species`, message: `only mEq and mmol lines name a species` });
+    problems.push({ path: linePath(index, '.species'), message: `only mEq and mmol lines name a species` });
   }
   return { kind: 'amount', index, product, amount: line.amount, unit: line.unit, species, note };
+}
+
+/**
+ * A well-formed order line read and bound to its product in one step, as bindLine binds the schema's
+ * output; null for anything bindLine or the schema would report (parseOrder then takes the full path).
+ */
+function plainLine(input: unknown, index: number, catalog: Catalog): OrderLine | null {
+  if (!isRecord(input)) return null;
+  const { product: id, amount, unit, species: named, fill, note } = input;
+  if (typeof id !== 'string' || id.length === 0) return null;
+  if (!isOptionalString(named) || !isOptionalString(note) || (fill !== undefined && typeof fill !== 'boolean')) return null;
+  if (unit !== undefined && !isOneOf(LINE_UNITS, unit)) return null;
+  const value = amount === undefined ? undefined : readAmount(amount);
+  if (value === null) return null;
+  const product = catalog.byId.get(id);
+  if (!product) return null;
+  if (fill) return value === undefined && unit === undefined ? { kind: 'fill', index, product, note: note ?? null } : null;
+  if (value === undefined || unit === undefined) return null;
+  const base = baseUnit(unit);
+  if (base === 'g' && !NUTRIENT_ROLES.includes(product.role)) return null;
+  let species: SpeciesId | null = null;
+  if (base === 'mEq' || base === 'mmol') {
+    const s = named ?? product.orderSpecies;
+    if (s === null || !isSpeciesId(s) || !product.perMl[s]?.gt(0)) return null;
+    if (base === 'mEq' && (isPhosphateSpecies(s) || !isCharged(s))) return null;
+    species = s;
+  } else if (named !== undefined) return null;
+  return { kind: 'amount', index, product, amount: value, unit, species, note: note ?? null };
+}
+
+/** Hours of an order that names none: one day. */
+const DAY_HOURS = new D(24);
+
+/**
+ * A well-formed order file without an ion block, read and bound without the schema machinery: the
+ * order parseOrder's full path gives, or null for anything else (a missing or wrong field, an unknown
+ * product, an ion block), which the full path then reads and reports. Most files in a batch are well
+ * formed, and this is the cheap way through them. order.test.ts holds the two paths to the same result.
+ */
+export function readPlainOrder(input: unknown, catalog: Catalog): Order | null {
+  if (!isRecord(input) || !isRecord(input.patient) || !Array.isArray(input.lines)) return null;
+  const { format, version, patient, route, volumeMl, hours, ions, note } = input;
+  if ((format !== undefined && format !== 'osmocount-order') || (version !== undefined && version !== 1)) return null;
+  if (ions !== undefined || !isOptionalString(note) || !isOneOf(ROUTES, route)) return null;
+  const id = nonEmptyTrimmed(input.id);
+  const patientId = nonEmptyTrimmed(patient.id);
+  const weightKg = readWeight(patient.weightKg);
+  const { name, location, ageGroup } = patient;
+  if (id === null || patientId === null || weightKg === null || !isOneOf(AGE_GROUPS, ageGroup)) return null;
+  if (!isOptionalString(name) || !isOptionalString(location)) return null;
+  const volume = volumeMl === undefined ? null : readVolume(volumeMl);
+  if (volumeMl !== undefined && volume === null) return null;
+  const h = hours === undefined ? DAY_HOURS : readHours(hours);
+  if (h === null) return null;
+  const fileLines = input.lines as unknown[];
+  if (fileLines.length === 0) return null;
+  const lines: OrderLine[] = [];
+  let filled = false;
+  for (let i = 0; i < fileLines.length; i++) {
+    const line = plainLine(fileLines[i], i, catalog);
+    if (line === null) return null;
+    if (line.kind === 'fill') {
+      if (filled || volume === null) return null;
+      filled = true;
+    }
+    lines.push(line);
+  }
+  return {
+    id,
+    patient: { id: patientId, name: name ?? null, location: location ?? null, weightKg, ageGroup },
+    route, volumeMl: volume, hours: h, lines, ions: null, note: note ?? null,
+  };
 }
 
 /**
@@ -244,19 +260,30 @@ function bindLine(line: LineInput, index: number, catalog: Catalog, problems: Pr
  * Unknown products and species, mEq of phosphate and two fill lines are errors.
  */
 export function parseOrder(input: unknown, catalog: Catalog): Result<Order> {
-  const plain = readPlainOrderFile(input);
-  const parsed: Result<OrderFile> = plain ? { ok: true, value: plain } : parseWith(orderFileSchema, input);
+  const plain = readPlainOrder(input, catalog);
+  return plain ? { ok: true, value: plain } : parseOrderFile(input, catalog);
+}
+
+/** parseOrder's full path: the schema, then each line bound to the catalog, every problem listed. */
+export function parseOrderFile(input: unknown, catalog: Catalog): Result<Order> {
+  const parsed: Result<OrderFile> = parseWith(orderFileSchema, input);
   if (!parsed.ok) return parsed;
   const o = parsed.value;
   const problems: Problem[] = [];
   const lines: OrderLine[] = [];
-  o.lines.forEach((line, i) => {
+  let firstFill = -1;
+  let secondFill = -1;
+  for (let i = 0; i < o.lines.length; i++) {
+    const line = o.lines[i]!;
     const bound = bindLine(line, i, catalog, problems);
     if (bound) lines.push(bound);
-  });
-  const fills = o.lines.flatMap((l, i) => (l.fill ? [i] : []));
-  if (fills.length > 1) problems.push({ path: `lines[${fills[1]}].fill`, message: `only one line may fill the bag (line ${fills[0]} already does)` });
-  if (fills.length > 0 && o.volumeMl === undefined) problems.push({ path: 'volumeMl', message: 'is required when a line fills the bag' });
+    if (line.fill) {
+      if (firstFill === -1) firstFill = i;
+      else if (secondFill === -1) secondFill = i;
+    }
+  }
+  if (secondFill !== -1) problems.push({ path: `lines[${secondFill}].fill`, message: `only one line may fill the bag (line ${firstFill} already does)` });
+  if (firstFill !== -1 && o.volumeMl === undefined) problems.push({ path: 'volumeMl', message: 'is required when a line fills the bag' });
   if (o.lines.length === 0 && !o.ions) problems.push({ path: 'lines', message: 'must hold at least one line' });
   if (problems.length > 0) return { ok: false, problems };
   return {
@@ -266,7 +293,7 @@ export function parseOrder(input: unknown, catalog: Catalog): Result<Order> {
       patient: { id: o.patient.id, name: o.patient.name ?? null, location: o.patient.location ?? null, weightKg: o.patient.weightKg, ageGroup: o.patient.ageGroup },
       route: o.route,
       volumeMl: o.volumeMl ?? null,
-      hours: o.hours ?? new D(24),
+      hours: o.hours ?? DAY_HOURS,
       lines,
       ions: o.ions ?? null,
       note: o.note ?? null,
