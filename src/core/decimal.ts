@@ -366,6 +366,9 @@ export class D {
   plus(y: Numeric): D {
     const v = parsed(y);
     if (this.x !== null || v.x !== null) return fromReference(toReference(this).plus(toReference(v)));
+    // Adding zero to a rounded value gives that value (a bag's totals add many zeros): no new decimal.
+    if (v.c === 0 && this.c !== 0 && this.c < LIMIT && this.c > -LIMIT) return this;
+    if (this.c === 0 && v.c !== 0 && v.c < LIMIT && v.c > -LIMIT) return v;
     return add(this.c, this.e, v.c, v.e);
   }
 
