@@ -1,7 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { DEFAULT_CATALOG } from '../../defaults.ts';
-import { bagOf } from '../../../test/helpers/orders.ts';
-import { GROUP, groupsOf, linesIn } from './lineGroups.ts';
+import { GROUP, groupsOf } from './lineGroups.ts';
 
 function groupNames(id: string): string[] {
   const p = DEFAULT_CATALOG.byId.get(id);
@@ -24,22 +23,5 @@ describe('groupsOf', () => {
     expect(groupNames('dextrose-50')).toEqual(['dextrose', 'energy']);
     expect(groupNames('lipid-20')).toEqual(['lipid', 'energy']);
     expect(groupNames('sterile-water')).toEqual([]);
-  });
-});
-
-describe('linesIn', () => {
-  it('names the lines in the bag of any of the groups, in order, and not a line of zero volume', () => {
-    const bag = bagOf({
-      age: 'adult', weightKg: 70, volumeMl: 2000, lines: [
-        { product: 'calcium-gluconate-10', amount: 10, unit: 'mEq', species: 'Ca' },
-        { product: 'dextrose-50', amount: 200, unit: 'g' },
-        { product: 'potassium-phosphates-3', amount: 15, unit: 'mmol', species: 'phosphate' },
-        { product: 'magnesium-sulfate-50', amount: 0, unit: 'mEq', species: 'Mg' },
-        { product: 'sterile-water', fill: true },
-      ],
-    });
-    expect(linesIn(bag, GROUP.Ca | GROUP.phosphate)).toEqual([0, 2]);
-    expect(linesIn(bag, GROUP.Mg)).toEqual([]);
-    expect(linesIn(bag, GROUP.energy)).toEqual([1]);
   });
 });

@@ -1,5 +1,4 @@
 import type { Product } from '../catalog.ts';
-import type { Bag } from '../compute/bag.ts';
 import { stockFigures } from '../compute/stock.ts';
 
 /**
@@ -46,11 +45,4 @@ export function groupsOf(product: Product): number {
     groupsByProduct.set(product, groups);
   }
   return groups;
-}
-
-/** Indexes of the bag's lines that put volume in the bag and belong to any of the groups, in order. */
-export function linesIn(bag: Bag, groups: number): number[] {
-  const out: number[] = [];
-  for (const l of bag.lines) if (l.inBag && (groupsOf(l.product) & groups) !== 0) out.push(l.line.index);
-  return out;
 }
