@@ -39,11 +39,12 @@ export const aluminum: Check = (bag, policy) => {
   // One pass over the lines in the bag: which have a value, the largest contributors, the stocks without one.
   let known = false;
   const top: BagLine[] = [];
-  const missing: string[] = [];
+  // The stocks without a value, as the message lists them ("a; b; c"; Array join is slow for so few).
+  let missing = '';
   for (const l of bag.lines) {
     if (!l.inBag) continue;
     if (l.product.aluminumMcgPerL === null) {
-      missing.push(l.product.name);
+      missing = missing === '' ? l.product.name : `${missing}; ${l.product.name}`;
       continue;
     }
     known = true;
@@ -63,9 +64,7 @@ export const aluminum: Check = (bag, policy) => {
     topText += `${topText === '' ? ' Largest contributors: ' : '; '}${l.product.name} ${fmt(l.aluminumMcg, 1)} µg (${fmt(l.aluminumMcg.div(total).times(100), 0)}%)`;
   }
   if (topText !== '') topText += '.';
-  const missingText = missing.length === 0
-    ? ''
-    : ` No aluminum value in the catalog for: ${missing.join('; ')} — the figure is a lower bound.`;
+  const missingText = missing === '' ? '' : ` No aluminum value in the catalog for: ${missing} — the figure is a lower bound.`;
   const atOrOver = settled(value).gte(rule.max);
   const lines: number[] = [];
   if (atOrOver) for (const l of top) lines.push(l.line.index);

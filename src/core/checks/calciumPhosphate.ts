@@ -103,7 +103,7 @@ export const calciumPhosphate: Check = (bag, policy) => {
       out.push(fromRule('calcium-phosphate', productRule, {
         value: product, limit: productRule.max, decimals: 1, screen: 'product',
         message: `Ca × P = ${calciumText} mmol/L calcium × ${inorganicText} mmol/L inorganic phosphate = ${fmt(product, 1)} mmol²/L², ${over ? 'over' : 'within'} the ${route} product screen of ${productRule.max.toString()}.${organicNote} ${SCREENS_ONLY}${curveNote} ${DEFER}`,
-        lines: caLines.concat(pLines),
+        lines: [...caLines, ...pLines],
         within: !over,
       }));
     }
@@ -114,7 +114,7 @@ export const calciumPhosphate: Check = (bag, policy) => {
       out.push(fromRule('calcium-phosphate', sumRule, {
         value: total, limit: sumRule.max, decimals: 1, screen: 'sum',
         message: `Ca + P = ${fmt(lv.calciumMEqPerL, 2)} mEq/L calcium + ${inorganicText} mmol/L inorganic phosphate = ${fmt(total, 1)}, ${over ? 'over' : 'within'} the sum screen of ${sumRule.max.toString()}. ${SCREENS_ONLY} ${DEFER}`,
-        lines: caLines.concat(pLines),
+        lines: [...caLines, ...pLines],
         within: !over,
       }));
     }
@@ -123,7 +123,7 @@ export const calciumPhosphate: Check = (bag, policy) => {
       out.push(fromRule('calcium-phosphate', chlorideRule, {
         value: null, limit: null, decimals: 0, screen: 'calcium-chloride',
         message: `Calcium chloride with inorganic phosphate: calcium chloride dissociates more than calcium gluconate, so less phosphate stays in solution, whatever the screens above say. Use calcium gluconate, or confirm this combination against a solubility curve made with calcium chloride. ${DEFER}`,
-        lines: lines.calciumChloride.concat(pLines),
+        lines: [...lines.calciumChloride, ...pLines],
       }));
     }
   }
@@ -137,7 +137,7 @@ export const calciumPhosphate: Check = (bag, policy) => {
       out.push(fromRule('calcium-phosphate', organicRule, {
         value: pOrganic, limit: organicRule.max, decimals: 2, screen: 'organic-phosphate',
         message: `Organic phosphate (glycerophosphate) ${organicText} mmol/L is reported separately: organic phosphate salts stay in solution with calcium far above inorganic ones.${limitText}${inorganicText} ${DEFER}`,
-        lines: organicLines.concat(caLines),
+        lines: [...organicLines, ...caLines],
         within: !over,
       }));
     }
@@ -150,7 +150,7 @@ export const calciumPhosphate: Check = (bag, policy) => {
     out.push(fromRule('calcium-phosphate', lipidRule, {
       value: null, limit: null, decimals: 0, screen: 'hidden-by-lipid',
       message: 'This is a 3-in-1: a calcium phosphate precipitate cannot be seen in the emulsion, so visual inspection cannot rule it out. Rely on the curve and the screens, and use the in-line filter the policy requires.',
-      lines: caLines.concat(pLines, organicLines),
+      lines: [...caLines, ...pLines, ...organicLines],
     }));
   }
   return out;
@@ -163,7 +163,7 @@ function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, scree
   const only = screen.aminoAcids;
   if (!only) return { finding: null, note: 'The bag has no amino acids: published curves do not cover it.' };
   if (screen.mixedAminoAcids) return { finding: null, note: 'The bag mixes amino-acid products: no single product curve applies.' };
-  const lines = screen.calcium.concat(screen.phosphate);
+  const lines = [...screen.calcium, ...screen.phosphate];
   const aaPercent = bag.percent.aminoAcids;
   const curve = curveFor(policy.solubilityCurves, only.id, aaPercent);
   if (!curve) {
