@@ -50,7 +50,8 @@ function dose(bag: Bag, nutrient: DoseNutrient, unit: DoseUnit): D | null {
     case 'lipid': amount = bag.grams.lipid; break;
     case 'lipidRate': return unit.perHour ? perKgOf(bag, bag.grams.lipid).div(bag.hours) : null;
     case 'npcToN': return bag.npcToN;
-    // A sum, or a conversion, made for this dose alone: divided here, not kept among the bag's per-kg figures.
+    // A sum, or a conversion, made for this dose alone: divided by the weight here (as perKgOf would), not
+    // kept among the bag's per-kg figures, which hold the bag's own figures for the report to read again.
     case 'phosphate': {
       const mmol = bag.speciesMmol.phosphate.plus(bag.speciesMmol.glycerophosphate);
       return unit.perKg ? mmol.div(bag.order.patient.weightKg) : mmol;

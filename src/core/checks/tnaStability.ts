@@ -87,14 +87,15 @@ export const tnaStability: Check = (bag, policy) => {
   ];
   for (const f of minimums) if (f) out.push(f);
   const loads = cationLoads(bag);
+  const divalentText = fmt(loads.divalent, 2);
   const divalentRule = ruleFor(policy, 'tna-divalent', age);
   if (divalentRule?.max) {
     const crossed = outside(loads.divalent, divalentRule);
     out.push(fromRule('tna-stability', divalentRule, {
       value: loads.divalent, limit: divalentRule.max, decimals: 2, screen: 'divalent-cations',
       message: crossed
-        ? `Divalent cations (calcium + magnesium) ${fmt(loads.divalent, 2)} mmol/L are over the 3-in-1 limit of ${divalentRule.max.toString()} mmol/L: divalent cations destabilise the emulsion. ${DEFER}`
-        : `Divalent cations (calcium + magnesium) ${fmt(loads.divalent, 2)} mmol/L are within the 3-in-1 limit (${rangeText(divalentRule)}).`,
+        ? `Divalent cations (calcium + magnesium) ${divalentText} mmol/L are over the 3-in-1 limit of ${divalentRule.max.toString()} mmol/L: divalent cations destabilise the emulsion. ${DEFER}`
+        : `Divalent cations (calcium + magnesium) ${divalentText} mmol/L are within the 3-in-1 limit (${rangeText(divalentRule)}).`,
       lines: lines.divalent,
       within: crossed === null,
     }));
@@ -103,7 +104,7 @@ export const tnaStability: Check = (bag, policy) => {
   if (canRule) {
     const can = criticalAggregationNumber(loads);
     const crossed = canRule.max ? outside(can, canRule) : null;
-    const formula = `CAN = a + 64b + 729c = ${fmt(loads.monovalent, 2)} + 64 × ${fmt(loads.divalent, 2)} + 729 × ${fmt(loads.trivalent, 2)} = ${fmt(can, 1)} mmol/L (a: Na + K, b: Ca + Mg, c: trivalent cations, each mmol/L)`;
+    const formula = `CAN = a + 64b + 729c = ${fmt(loads.monovalent, 2)} + 64 × ${divalentText} + 729 × ${fmt(loads.trivalent, 2)} = ${fmt(can, 1)} mmol/L (a: Na + K, b: Ca + Mg, c: trivalent cations, each mmol/L)`;
     const threshold = canRule.max ? `; the policy's threshold is ${canRule.max.toString()}` : '; no threshold is set, as no reliable published one exists';
     out.push(fromRule('tna-stability', canRule, {
       value: can, limit: canRule.max, decimals: 1, screen: 'critical-aggregation-number',
