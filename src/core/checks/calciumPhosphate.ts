@@ -40,7 +40,7 @@ interface ScreenLines {
   organic: number[];
   /** Calcium with chloride (calcium chloride). */
   calciumChloride: number[];
-  /** The amino-acid product, when the bag holds exactly one. */
+  /** The bag's amino-acid product (the first, when it holds several); null without amino acids. */
   aminoAcids: Product | null;
   /** True when the bag holds more than one amino-acid product. */
   mixedAminoAcids: boolean;
