@@ -43,10 +43,31 @@ export function verdictOf(findings: readonly Finding[]): Verdict {
   return 'pass';
 }
 
-/** Base of a finding built from a policy rule (severity, unit, source come from the policy). */
-export function fromRule(code: FindingCode, rule: Rule, parts: { value: D | null; limit: D | null; decimals: number; message: string; lines?: number[]; fields?: string[]; nutrient?: string; screen?: string }): Finding {
+/** What a finding built from a policy rule says beyond the rule itself (see fromRule). */
+export interface FindingParts {
+  value: D | null;
+  limit: D | null;
+  decimals: number;
+  message: string;
+  lines?: number[];
+  fields?: string[];
+  nutrient?: string;
+  screen?: string;
+  /** True when the value was screened and is within its limit: the finding is information, not the rule's severity. */
+  within?: boolean;
+  /** The unit of the value and limit, when not the rule's. */
+  unit?: string;
+  /** Where the limit comes from, when more than the rule's source. */
+  source?: string;
+}
+
+/**
+ * A finding built from a policy rule: its severity (or `info` when `within`), unit and source come from
+ * the policy. The fields are always set in the same order, `nutrient` and `screen` only when given.
+ */
+export function fromRule(code: FindingCode, rule: Rule, parts: FindingParts): Finding {
   const f: Finding = {
-    code, severity: rule.severity, unit: rule.unit, source: rule.source,
+    code, severity: parts.within === true ? 'info' : rule.severity, unit: parts.unit ?? rule.unit, source: parts.source ?? rule.source,
     value: parts.value, limit: parts.limit, decimals: parts.decimals, message: parts.message,
     lines: parts.lines ?? [], fields: parts.fields ?? [],
   };

@@ -35,6 +35,22 @@ describe('aluminum', () => {
     expect(f?.lines).toEqual([1, 2, 0]);
   });
 
+  it('names the three largest contributors, equal ones in the order of their lines', () => {
+    // 21 CFR 201.323(a): large-volume parenterals ≤ 25 µg/L: 100 mL dextrose 10% = 2.5 µg. Phosphates at 25000 µg/L and
+    // calcium gluconate at 5000 µg/L (from memory): 2 mL sodium phosphates = 50 µg, 10 mL calcium gluconate = 50 µg,
+    // 4 mL potassium phosphates = 100 µg; 202.5 µg in all, 100 µg is 49%, 50 µg 25%.
+    const bag = bagOf({ age: 'term-neonate', weightKg: 2, lines: [
+      { product: 'dextrose-10', amount: 100, unit: 'mL' },
+      { product: 'sodium-phosphates-3', amount: 2, unit: 'mL' },
+      { product: 'calcium-gluconate-10', amount: 10, unit: 'mL' },
+      { product: 'potassium-phosphates-3', amount: 4, unit: 'mL' },
+    ] });
+    const [f] = aluminum(bag, DEFAULT_POLICY);
+    expect(f?.value?.toNumber()).toBe(101.25);
+    expect(f?.message).toMatch(/Largest contributors: Potassium phosphates[^;]* 100\.0 µg \(49%\); Sodium phosphates[^;]* 50\.0 µg \(25%\); Calcium gluconate[^;]* 50\.0 µg \(25%\)\./);
+    expect(f?.lines).toEqual([3, 1, 2]);
+  });
+
   it('says which stocks have no aluminum value: the figure is then a lower bound', () => {
     const bag = bagOf({ age: 'adult', weightKg: 70, lines: [
       { product: 'calcium-gluconate-10', amount: 10, unit: 'mL' },

@@ -1,11 +1,31 @@
 import { ZERO } from '../decimal.ts';
 import { fmt } from '../format.ts';
 import { ruleFor } from '../policy.ts';
+import type { Bag, BagLine } from '../compute/bag.ts';
 import { fromRule, type Check } from '../findings.ts';
-import { asInfo, settled, DEFER } from './limits.ts';
+import { settled, DEFER } from './limits.ts';
 
 /** How many contributors a message names. */
 const TOP = 3;
+
+/**
+ * Put a line among the largest contributors `top` (at most TOP, most aluminum first), where a stable
+ * sort of every line by descending aluminum would put it: after the lines with as much or more.
+ */
+function rank(top: BagLine[], l: BagLine): void {
+  let at = top.length;
+  while (at > 0 && top[at - 1]!.aluminumMcg.cmp(l.aluminumMcg) < 0) at--;
+  if (at >= TOP) return;
+  if (top.length < TOP) top.push(l);
+  for (let i = top.length - 1; i > at; i--) top[i] = top[i - 1]!;
+  top[at] = l;
+}
+
+function inBagLines(bag: Bag): number[] {
+  const out: number[] = [];
+  for (const l of bag.lines) if (l.inBag) out.push(l.line.index);
+  return out;
+}
 
 /**
  * Aluminum exposure (`aluminum`), µg/kg/day: Σ each stock's labelled maximum (µg/L) × its volume,
@@ -16,32 +36,44 @@ const TOP = 3;
 export const aluminum: Check = (bag, policy) => {
   const rule = ruleFor(policy, 'aluminum', bag.order.patient.ageGroup);
   if (!rule?.max || bag.finalVolumeMl.isZero()) return [];
-  const inBag = bag.lines.filter((l) => l.inBag);
-  const missing = inBag.filter((l) => l.product.aluminumMcgPerL === null);
-  const known = inBag.filter((l) => l.product.aluminumMcgPerL !== null);
-  if (known.length === 0) {
+  // One pass over the lines in the bag: which have a value, the largest contributors, the stocks without one.
+  let known = false;
+  const top: BagLine[] = [];
+  // The stocks without a value, as the message lists them ("a; b; c"; Array join is slow for so few).
+  let missing = '';
+  for (const l of bag.lines) {
+    if (!l.inBag) continue;
+    if (l.product.aluminumMcgPerL === null) {
+      missing = missing === '' ? l.product.name : `${missing}; ${l.product.name}`;
+      continue;
+    }
+    known = true;
+    if (l.aluminumMcg.gt(ZERO)) rank(top, l);
+  }
+  if (!known) {
     return [fromRule('aluminum', rule, {
       value: null, limit: rule.max, decimals: 2,
       message: `No stock in this bag has an aluminum value in the catalog, so exposure cannot be estimated. Add each stock's labelled "contains no more than … µg/L" value. ${DEFER}`,
-      lines: inBag.map((l) => l.line.index),
+      lines: inBagLines(bag),
     })];
   }
   const value = bag.aluminumMcgPerKgPerDay;
   const total = bag.aluminumMcg;
-  const top = known.filter((l) => l.aluminumMcg.gt(ZERO)).sort((a, b) => b.aluminumMcg.cmp(a.aluminumMcg)).slice(0, TOP);
-  const topText = top.length === 0
-    ? ''
-    : ` Largest contributors: ${top.map((l) => `${l.product.name} ${fmt(l.aluminumMcg, 1)} µg (${fmt(l.aluminumMcg.div(total).times(100), 0)}%)`).join('; ')}.`;
-  const missingText = missing.length === 0
-    ? ''
-    : ` No aluminum value in the catalog for: ${missing.map((l) => l.product.name).join('; ')} — the figure is a lower bound.`;
+  let topText = '';
+  for (const l of top) {
+    topText += `${topText === '' ? ' Largest contributors: ' : '; '}${l.product.name} ${fmt(l.aluminumMcg, 1)} µg (${fmt(l.aluminumMcg.div(total).times(100), 0)}%)`;
+  }
+  if (topText !== '') topText += '.';
+  const missingText = missing === '' ? '' : ` No aluminum value in the catalog for: ${missing} — the figure is a lower bound.`;
   const atOrOver = settled(value).gte(rule.max);
-  const f = fromRule('aluminum', rule, {
+  const lines: number[] = [];
+  if (atOrOver) for (const l of top) lines.push(l.line.index);
+  return [fromRule('aluminum', rule, {
     value, limit: rule.max, decimals: 2,
     message: atOrOver
       ? `Aluminum ${fmt(value, 2)} µg/kg/day is at or above the limit of ${rule.max.toString()} µg/kg/day: it accumulates, above all with immature or impaired kidneys.${topText}${missingText} Consider lower-aluminum stocks. ${DEFER}`
       : `Aluminum ${fmt(value, 2)} µg/kg/day is below the limit of ${rule.max.toString()} µg/kg/day.${topText}${missingText}`,
-    lines: (atOrOver ? top : []).map((l) => l.line.index),
-  });
-  return [atOrOver ? f : asInfo(f)];
+    lines,
+    within: !atOrOver,
+  })];
 };

@@ -163,6 +163,22 @@ describe('calcium-phosphate', () => {
       const f = one(calciumPhosphate(bag('child', 'central', '7.5', '2', aa), DEFAULT_POLICY), 'calcium-phosphate', { screen: 'product' });
       expect(f.message).toContain('No solubility curve');
     });
+
+    // ASPEN 2014 (Boullata et al.), question 7: a published curve is for one amino-acid product.
+    it('reads the product of a bag whose amino acids come on two lines of one stock, and no curve for a bag mixing two', () => {
+      const twoLines: Extra = [...aa, { product: 'amino-acids-10', amount: 50, unit: 'mL' }];
+      const same = one(calciumPhosphate(bag('child', 'central', '7.5', '2', twoLines), policy), 'calcium-phosphate', { screen: 'solubility-curve' });
+      expect(same.message).toContain('aa10-at-2');
+      const mixed: Extra = [...aa, { product: 'amino-acids-15', amount: 50, unit: 'mL' }];
+      const findings = calciumPhosphate(bag('child', 'central', '7.5', '2', mixed), policy);
+      expect(pick(findings, 'calcium-phosphate', { screen: 'solubility-curve' })).toEqual([]);
+      expect(one(findings, 'calcium-phosphate', { screen: 'product' }).message).toContain('mixes amino-acid products');
+    });
+
+    it('a bag without amino acids gets no curve reading, and the screens say so', () => {
+      const f = one(calciumPhosphate(bag('child', 'central', '7.5', '2'), policy), 'calcium-phosphate', { screen: 'product' });
+      expect(f.message).toContain('no amino acids: published curves do not cover it');
+    });
   });
 
   it('its findings reach the report through evaluateOrder', () => {

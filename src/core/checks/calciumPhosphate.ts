@@ -3,8 +3,10 @@ import { fmt } from '../format.ts';
 import { ruleFor, type Policy } from '../policy.ts';
 import { perLitreOf, type Bag } from '../compute/bag.ts';
 import { as, mmolToMEq } from '../units.ts';
+import type { Product } from '../catalog.ts';
 import { fromRule, type Check, type Finding } from '../findings.ts';
-import { asInfo, outside, settled, DEFER } from './limits.ts';
+import { outside, settled, DEFER } from './limits.ts';
+import { GROUP, groupsOf } from './lineGroups.ts';
 import { curveFor, readCurve } from './solubilityCurve.ts';
 
 /** Calcium and phosphate of a bag as the screens read them, per litre of the final volume. */
@@ -30,8 +32,38 @@ export function calciumPhosphateLevels(bag: Bag): CalciumPhosphateLevels {
 
 const SCREENS_ONLY = 'These are screens only: the solubility curve of the amino-acid product in this bag, at its amino-acid %, temperature and hang time, decides.';
 
-function linesWith(bag: Bag, test: (l: Bag['lines'][number]) => boolean): number[] {
-  return bag.lines.filter((l) => l.inBag && test(l)).map((l) => l.line.index);
+/** The lines the screens name, and the bag's amino-acid product, found in one pass over the lines in the bag. */
+interface ScreenLines {
+  calcium: number[];
+  /** Inorganic phosphate. */
+  phosphate: number[];
+  organic: number[];
+  /** Calcium with chloride (calcium chloride). */
+  calciumChloride: number[];
+  /** The bag's amino-acid product (the first, when it holds several); null without amino acids. */
+  aminoAcids: Product | null;
+  /** True when the bag holds more than one amino-acid product. */
+  mixedAminoAcids: boolean;
+}
+
+function screenLines(bag: Bag): ScreenLines {
+  const out: ScreenLines = { calcium: [], phosphate: [], organic: [], calciumChloride: [], aminoAcids: null, mixedAminoAcids: false };
+  for (const l of bag.lines) {
+    if (!l.inBag) continue;
+    const groups = groupsOf(l.product);
+    const index = l.line.index;
+    if (groups & GROUP.Ca) {
+      out.calcium.push(index);
+      if (groups & GROUP.Cl) out.calciumChloride.push(index);
+    }
+    if (groups & GROUP.phosphate) out.phosphate.push(index);
+    if (groups & GROUP.glycerophosphate) out.organic.push(index);
+    if (groups & GROUP.aminoAcids) {
+      if (!out.aminoAcids || out.aminoAcids.id === l.product.id) out.aminoAcids = l.product;
+      else out.mixedAminoAcids = true;
+    }
+  }
+  return out;
 }
 
 /**
@@ -50,60 +82,64 @@ export const calciumPhosphate: Check = (bag, policy) => {
   if (!lv.calciumMmolPerL.gt(0) || !(pInorganic.gt(0) || pOrganic.gt(0))) return [];
   const age = bag.order.patient.ageGroup;
   const route = bag.order.route;
-  const caLines = linesWith(bag, (l) => l.stock.holds.has('Ca'));
-  const pLines = linesWith(bag, (l) => l.stock.holds.has('phosphate'));
-  const organicLines = linesWith(bag, (l) => l.stock.holds.has('glycerophosphate'));
-  const curve = curveScreen(bag, policy, lv, [...caLines, ...pLines]);
+  const lines = screenLines(bag);
+  const caLines = lines.calcium;
+  const pLines = lines.phosphate;
+  const organicLines = lines.organic;
+  const curve = curveScreen(bag, policy, lv, lines);
   const curveNote = curve.note ? ` ${curve.note}` : '';
-  const organicNote = pOrganic.gt(0) ? ` Organic phosphate (glycerophosphate) ${fmt(pOrganic, 2)} mmol/L is not counted in the inorganic term.` : '';
+  const hasOrganic = pOrganic.gt(0);
+  const organicText = hasOrganic ? fmt(pOrganic, 2) : '';
+  const calciumText = fmt(lv.calciumMmolPerL, 2);
+  const organicNote = hasOrganic ? ` Organic phosphate (glycerophosphate) ${organicText} mmol/L is not counted in the inorganic term.` : '';
   const out: Finding[] = [];
 
   if (pInorganic.gt(0)) {
+    const inorganicText = fmt(pInorganic, 2);
     const productRule = ruleFor(policy, route === 'central' ? 'calcium-phosphate-product-central' : 'calcium-phosphate-product-peripheral', age);
     if (productRule?.max) {
       const product = lv.calciumMmolPerL.times(pInorganic);
       const over = outside(product, productRule) === 'max';
-      const f = fromRule('calcium-phosphate', productRule, {
+      out.push(fromRule('calcium-phosphate', productRule, {
         value: product, limit: productRule.max, decimals: 1, screen: 'product',
-        message: `Ca × P = ${fmt(lv.calciumMmolPerL, 2)} mmol/L calcium × ${fmt(pInorganic, 2)} mmol/L inorganic phosphate = ${fmt(product, 1)} mmol²/L², ${over ? 'over' : 'within'} the ${route} product screen of ${productRule.max.toString()}.${organicNote} ${SCREENS_ONLY}${curveNote} ${DEFER}`,
+        message: `Ca × P = ${calciumText} mmol/L calcium × ${inorganicText} mmol/L inorganic phosphate = ${fmt(product, 1)} mmol²/L², ${over ? 'over' : 'within'} the ${route} product screen of ${productRule.max.toString()}.${organicNote} ${SCREENS_ONLY}${curveNote} ${DEFER}`,
         lines: [...caLines, ...pLines],
-      });
-      out.push(over ? f : asInfo(f));
+        within: !over,
+      }));
     }
     const sumRule = ruleFor(policy, 'calcium-phosphate-sum', age);
     if (sumRule?.max) {
       const total = lv.calciumMEqPerL.plus(pInorganic);
       const over = outside(total, sumRule) === 'max';
-      const f = fromRule('calcium-phosphate', sumRule, {
+      out.push(fromRule('calcium-phosphate', sumRule, {
         value: total, limit: sumRule.max, decimals: 1, screen: 'sum',
-        message: `Ca + P = ${fmt(lv.calciumMEqPerL, 2)} mEq/L calcium + ${fmt(pInorganic, 2)} mmol/L inorganic phosphate = ${fmt(total, 1)}, ${over ? 'over' : 'within'} the sum screen of ${sumRule.max.toString()}. ${SCREENS_ONLY} ${DEFER}`,
+        message: `Ca + P = ${fmt(lv.calciumMEqPerL, 2)} mEq/L calcium + ${inorganicText} mmol/L inorganic phosphate = ${fmt(total, 1)}, ${over ? 'over' : 'within'} the sum screen of ${sumRule.max.toString()}. ${SCREENS_ONLY} ${DEFER}`,
         lines: [...caLines, ...pLines],
-      });
-      out.push(over ? f : asInfo(f));
+        within: !over,
+      }));
     }
-    const chlorideLines = linesWith(bag, (l) => l.stock.holds.has('Ca') && l.stock.holds.has('Cl'));
     const chlorideRule = ruleFor(policy, 'calcium-chloride-phosphate', age);
-    if (chlorideRule && chlorideLines.length > 0) {
+    if (chlorideRule && lines.calciumChloride.length > 0) {
       out.push(fromRule('calcium-phosphate', chlorideRule, {
         value: null, limit: null, decimals: 0, screen: 'calcium-chloride',
         message: `Calcium chloride with inorganic phosphate: calcium chloride dissociates more than calcium gluconate, so less phosphate stays in solution, whatever the screens above say. Use calcium gluconate, or confirm this combination against a solubility curve made with calcium chloride. ${DEFER}`,
-        lines: [...chlorideLines, ...pLines],
+        lines: [...lines.calciumChloride, ...pLines],
       }));
     }
   }
 
-  if (pOrganic.gt(0)) {
+  if (hasOrganic) {
     const organicRule = ruleFor(policy, 'calcium-phosphate-organic', age);
     if (organicRule) {
       const over = outside(pOrganic, organicRule) === 'max';
       const inorganicText = pInorganic.gt(0) ? '' : ' With no inorganic phosphate, the inorganic screens are not triggered.';
-      const limitText = organicRule.max ? ` Tested up to ${organicRule.max.toString()} mmol/L${over ? ': this bag is beyond what was tested' : ''} (calcium here ${fmt(lv.calciumMmolPerL, 2)} mmol/L).` : '';
-      const f = fromRule('calcium-phosphate', organicRule, {
+      const limitText = organicRule.max ? ` Tested up to ${organicRule.max.toString()} mmol/L${over ? ': this bag is beyond what was tested' : ''} (calcium here ${calciumText} mmol/L).` : '';
+      out.push(fromRule('calcium-phosphate', organicRule, {
         value: pOrganic, limit: organicRule.max, decimals: 2, screen: 'organic-phosphate',
-        message: `Organic phosphate (glycerophosphate) ${fmt(pOrganic, 2)} mmol/L is reported separately: organic phosphate salts stay in solution with calcium far above inorganic ones.${limitText}${inorganicText} ${DEFER}`,
+        message: `Organic phosphate (glycerophosphate) ${organicText} mmol/L is reported separately: organic phosphate salts stay in solution with calcium far above inorganic ones.${limitText}${inorganicText} ${DEFER}`,
         lines: [...organicLines, ...caLines],
-      });
-      out.push(over ? f : asInfo(f));
+        within: !over,
+      }));
     }
   }
 
@@ -121,13 +157,13 @@ export const calciumPhosphate: Check = (bag, policy) => {
 };
 
 /** The solubility-curve screen: a finding when a curve applies, else a note for the screens' messages. */
-function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, lines: number[]): { finding: Finding | null; note: string | null } {
+function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, screen: ScreenLines): { finding: Finding | null; note: string | null } {
   const rule = ruleFor(policy, 'calcium-phosphate-curve', bag.order.patient.ageGroup);
   if (!rule || !lv.inorganicPhosphateMmolPerL.gt(0)) return { finding: null, note: null };
-  const aaProducts = [...new Map(bag.lines.filter((l) => l.product.role === 'amino-acids' && l.inBag).map((l) => [l.product.id, l.product])).values()];
-  const only = aaProducts[0];
-  if (aaProducts.length === 0) return { finding: null, note: 'The bag has no amino acids: published curves do not cover it.' };
-  if (aaProducts.length > 1 || !only) return { finding: null, note: 'The bag mixes amino-acid products: no single product curve applies.' };
+  const only = screen.aminoAcids;
+  if (!only) return { finding: null, note: 'The bag has no amino acids: published curves do not cover it.' };
+  if (screen.mixedAminoAcids) return { finding: null, note: 'The bag mixes amino-acid products: no single product curve applies.' };
+  const lines = [...screen.calcium, ...screen.phosphate];
   const aaPercent = bag.percent.aminoAcids;
   const curve = curveFor(policy.solubilityCurves, only.id, aaPercent);
   if (!curve) {
@@ -147,11 +183,11 @@ function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, lines
   const source = `${rule.source}; curve: ${curve.source}`;
   if (reading.where === 'beyond-last-point') {
     return {
-      finding: { ...fromRule('calcium-phosphate', rule, {
+      finding: fromRule('calcium-phosphate', rule, {
         value: ca, limit: reading.lastCalciumMEqPerL, decimals: 2, screen: 'solubility-curve',
         message: `Calcium ${fmt(ca, 2)} mEq/L is beyond the last point of ${curveName}: the curve does not show any phosphate compatible at this calcium. ${DEFER}`,
-        lines,
-      }), unit: 'mEq/L', source },
+        lines, unit: 'mEq/L', source,
+      }),
       note: null,
     };
   }
@@ -159,10 +195,10 @@ function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, lines
   const margin = limit.minus(p);
   const over = settled(p).gt(settled(limit));
   const below = reading.where === 'below-first-point' ? ` (calcium is below the curve's first point, whose phosphate is used)` : '';
-  const f: Finding = { ...fromRule('calcium-phosphate', rule, {
+  const finding = fromRule('calcium-phosphate', rule, {
     value: p, limit, decimals: 2, screen: 'solubility-curve',
     message: `Inorganic phosphate ${fmt(p, 2)} mmol/L against ${curveName}: at ${fmt(ca, 2)} mEq/L calcium the curve allows ${fmt(limit, 2)} mmol/L${below}; ${over ? `over it by ${fmt(margin.neg(), 2)}` : `margin ${fmt(margin, 2)}`} mmol/L. ${DEFER}`,
-    lines,
-  }), unit: 'mmol/L', source };
-  return { finding: over ? f : asInfo(f), note: null };
+    lines, unit: 'mmol/L', source, within: !over,
+  });
+  return { finding, note: null };
 }

@@ -1,11 +1,12 @@
-import { D, ZERO } from '../decimal.ts';
+import type { D } from '../decimal.ts';
 import { fmt } from '../format.ts';
-import { doseRangeFor, DOSE_NUTRIENTS, type DoseNutrient, type Rule } from '../policy.ts';
-import { perKgOf, type Bag, type BagLine } from '../compute/bag.ts';
-import type { SpeciesId } from '../species.ts';
+import type { AgeGroup } from '../order.ts';
+import { doseRangeFor, DOSE_NUTRIENTS, type DoseNutrient, type Policy, type Rule } from '../policy.ts';
+import { perKgOf, type Bag } from '../compute/bag.ts';
 import { as, mmolToMEq } from '../units.ts';
 import { fromRule, type Check, type Finding } from '../findings.ts';
-import { asInfo, outside, rangeText, reportedLimit, AGE_LABEL, DEFER } from './limits.ts';
+import { outside, rangeText, reportedLimit, AGE_LABEL, DEFER } from './limits.ts';
+import { GROUP, groupsOf } from './lineGroups.ts';
 
 const LABEL: Readonly<Record<DoseNutrient, string>> = {
   fluid: 'Fluid', energy: 'Energy', protein: 'Protein (amino acids)', lipid: 'Lipid', lipidRate: 'Lipid infusion rate',
@@ -16,7 +17,19 @@ const DECIMALS: Readonly<Record<DoseNutrient, number>> = {
   fluid: 1, energy: 1, protein: 2, lipid: 2, lipidRate: 3, Na: 2, K: 2, Ca: 2, Mg: 2, phosphate: 2, npcToN: 0,
 };
 
-const ION: Partial<Record<DoseNutrient, SpeciesId>> = { Na: 'Na', K: 'K', Ca: 'Ca', Mg: 'Mg' };
+/** How a nutrient's dose is read from the bag, from the unit the policy writes its range in. */
+interface DoseUnit {
+  /** Per kg of dosing weight (`/kg` in the unit). */
+  perKg: boolean;
+  /** Ions in mEq rather than mmol. */
+  mEq: boolean;
+  /** The lipid rate in g/kg/h (the only rate unit it is read in). */
+  perHour: boolean;
+}
+
+function doseUnit(unit: string): DoseUnit {
+  return { perKg: unit.includes('/kg'), mEq: unit.startsWith('mEq'), perHour: unit === 'g/kg/h' };
+}
 
 /**
  * A nutrient's dose in the unit the policy writes its range in; null when the bag has none to
@@ -25,67 +38,122 @@ const ION: Partial<Record<DoseNutrient, SpeciesId>> = { Na: 'Na', K: 'K', Ca: 'C
  * `mL/kg/day` → 29.41.
  */
 export function doseIn(bag: Bag, nutrient: DoseNutrient, unit: string): D | null {
-  const perKg = unit.includes('/kg');
-  const scale = (x: D) => (perKg ? perKgOf(bag, x) : x);
+  return dose(bag, nutrient, doseUnit(unit));
+}
+
+function dose(bag: Bag, nutrient: DoseNutrient, unit: DoseUnit): D | null {
+  let amount: D;
   switch (nutrient) {
-    case 'fluid': return scale(bag.finalVolumeMl);
-    case 'energy': return scale(bag.kcal.total);
-    case 'protein': return scale(bag.grams.aminoAcids);
-    case 'lipid': return scale(bag.grams.lipid);
-    case 'lipidRate': return unit === 'g/kg/h' ? perKgOf(bag, bag.grams.lipid).div(bag.hours) : null;
-    case 'phosphate': return scale(bag.speciesMmol.phosphate.plus(bag.speciesMmol.glycerophosphate));
+    case 'fluid': amount = bag.finalVolumeMl; break;
+    case 'energy': amount = bag.kcal.total; break;
+    case 'protein': amount = bag.grams.aminoAcids; break;
+    case 'lipid': amount = bag.grams.lipid; break;
+    case 'lipidRate': return unit.perHour ? perKgOf(bag, bag.grams.lipid).div(bag.hours) : null;
     case 'npcToN': return bag.npcToN;
+    // A sum, or a conversion, made for this dose alone: divided by the weight here (as perKgOf would), not
+    // kept among the bag's per-kg figures, which hold the bag's own figures for the report to read again.
+    case 'phosphate': {
+      const mmol = bag.speciesMmol.phosphate.plus(bag.speciesMmol.glycerophosphate);
+      return unit.perKg ? mmol.div(bag.order.patient.weightKg) : mmol;
+    }
     case 'Na': case 'K': case 'Ca': case 'Mg': {
       const mmol = bag.speciesMmol[nutrient];
-      return scale(unit.startsWith('mEq') ? mmolToMEq(nutrient, as(mmol, 'mmol')) : mmol);
+      if (!unit.mEq) { amount = mmol; break; }
+      const mEq = mmolToMEq(nutrient, as(mmol, 'mmol'));
+      return unit.perKg ? mEq.div(bag.order.patient.weightKg) : mEq;
     }
   }
+  return unit.perKg ? perKgOf(bag, amount) : amount;
 }
 
-function contributes(l: BagLine, nutrient: DoseNutrient): boolean {
-  const ion = ION[nutrient];
-  if (ion) return l.stock.holds.has(ion);
-  switch (nutrient) {
-    case 'protein': return l.product.role === 'amino-acids';
-    case 'lipid': case 'lipidRate': return l.product.role === 'lipid';
-    case 'phosphate': return l.stock.holds.has('phosphate') || l.stock.holds.has('glycerophosphate');
-    case 'energy': return l.kcal.gt(ZERO);
-    case 'npcToN': return l.product.role === 'amino-acids' || l.product.role === 'dextrose' || l.product.role === 'lipid';
-    default: return false;
+/** The lines that bring each nutrient: in the bag and in its GROUP. */
+const CONTRIBUTORS: Readonly<Record<DoseNutrient, number>> = {
+  fluid: 0, energy: GROUP.energy, protein: GROUP.aminoAcids, lipid: GROUP.lipid, lipidRate: GROUP.lipid,
+  Na: GROUP.Na, K: GROUP.K, Ca: GROUP.Ca, Mg: GROUP.Mg, phosphate: GROUP.phosphate | GROUP.glycerophosphate,
+  npcToN: GROUP.aminoAcids | GROUP.dextrose | GROUP.lipid,
+};
+
+/** One nutrient a policy ranges for an age group, with the parts of its finding that do not depend on the bag. */
+interface DoseScreen {
+  nutrient: DoseNutrient;
+  rule: Rule;
+  unit: DoseUnit;
+  decimals: number;
+  /** The message is `${head}${value}` and the tail for where the value falls. */
+  head: string;
+  above: string;
+  below: string;
+  within: string;
+  contributors: number;
+}
+
+function doseScreen(nutrient: DoseNutrient, rule: Rule, ageGroup: AgeGroup): DoseScreen {
+  const unit = ` ${rule.unit}`;
+  const range = rangeText(rule);
+  // NPC:N is information with a usual range; the doses are screened against the age group's range.
+  const usual = nutrient === 'npcToN';
+  const forWho = usual ? 'the usual range' : `the range for ${AGE_LABEL[ageGroup]}`;
+  return {
+    nutrient, rule, unit: doseUnit(rule.unit), decimals: DECIMALS[nutrient], head: `${LABEL[nutrient]} `,
+    above: usual ? `${unit} is above ${forWho}, ${range}.` : `${unit} is above ${forWho}, ${range}: confirm it is intended (for example replacement of losses). ${DEFER}`,
+    below: usual ? `${unit} is below ${forWho}, ${range}.` : `${unit} is below ${forWho}, ${range}: confirm it is intended or given another way. ${DEFER}`,
+    within: `${unit} is within ${forWho}, ${range}.`,
+    contributors: CONTRIBUTORS[nutrient],
+  };
+}
+
+// The screens of each policy and age group, in DOSE_NUTRIENTS order, worked out on first use: a policy is an
+// immutable value (a new file or edit is parsed into a new one), and every bag of the age group is screened
+// against the same ranges with the same words.
+const screensByPolicy = new WeakMap<Policy, Partial<Record<AgeGroup, readonly DoseScreen[]>>>();
+
+function doseScreens(policy: Policy, ageGroup: AgeGroup): readonly DoseScreen[] {
+  let byAge = screensByPolicy.get(policy);
+  if (!byAge) {
+    byAge = {};
+    screensByPolicy.set(policy, byAge);
   }
+  let screens = byAge[ageGroup];
+  if (!screens) {
+    screens = DOSE_NUTRIENTS.flatMap((nutrient) => {
+      const rule = doseRangeFor(policy, nutrient, ageGroup);
+      return rule && (rule.min || rule.max) ? [doseScreen(nutrient, rule, ageGroup)] : [];
+    });
+    byAge[ageGroup] = screens;
+  }
+  return screens;
 }
 
-function contributingLines(bag: Bag, nutrient: DoseNutrient): number[] {
-  const out: number[] = [];
-  for (const l of bag.lines) if (l.inBag && contributes(l, nutrient)) out.push(l.line.index);
+/** For each screen, the indexes of the lines that bring its nutrient: one pass over the bag's lines. */
+function contributingLines(bag: Bag, screens: readonly DoseScreen[]): number[][] {
+  const out: number[][] = [];
+  for (let i = 0; i < screens.length; i++) out.push([]);
+  for (const l of bag.lines) {
+    if (!l.inBag) continue;
+    const groups = groupsOf(l.product);
+    if (groups === 0) continue;
+    for (let i = 0; i < screens.length; i++) if ((screens[i]!.contributors & groups) !== 0) out[i]!.push(l.line.index);
+  }
   return out;
 }
 
-function rangeFinding(bag: Bag, nutrient: DoseNutrient, rule: Rule): Finding | null {
-  const value = doseIn(bag, nutrient, rule.unit);
+function rangeFinding(bag: Bag, screen: DoseScreen, lines: number[]): Finding | null {
+  const { nutrient, rule, decimals } = screen;
+  const value = dose(bag, nutrient, screen.unit);
   if (value === null) return null;
   // Nothing of it in the bag and no minimum: there is nothing to screen (e.g. lipid given separately).
   if (value.isZero() && !rule.min) return null;
-  const decimals = DECIMALS[nutrient];
   // A dose is screened as it is shown: measured volumes (10 mEq calcium → 21.5 mL → 9.9975 mEq) that
   // display as the limit meet it, so the pharmacist never reads "10.00 against 10" as a warning.
-  const crossed = outside(value.toDecimalPlaces(decimals), rule);
-  const shown = `${LABEL[nutrient]} ${fmt(value, decimals)} ${rule.unit}`;
-  const who = AGE_LABEL[bag.order.patient.ageGroup];
-  const range = rangeText(rule);
-  const message = nutrient === 'npcToN'
-    ? crossed ? `${shown} is ${crossed === 'max' ? 'above' : 'below'} the usual range, ${range}.` : `${shown} is within the usual range, ${range}.`
-    : crossed === 'max'
-      ? `${shown} is above the range for ${who}, ${range}: confirm it is intended (for example replacement of losses). ${DEFER}`
-      : crossed === 'min'
-        ? `${shown} is below the range for ${who}, ${range}: confirm it is intended or given another way. ${DEFER}`
-        : `${shown} is within the range for ${who}, ${range}.`;
-  const f = fromRule('dose-range', rule, {
-    value, limit: reportedLimit(rule, crossed), decimals, message, nutrient,
-    lines: contributingLines(bag, nutrient),
+  const shown = value.toDecimalPlaces(decimals);
+  const crossed = outside(shown, rule);
+  return fromRule('dose-range', rule, {
+    value, limit: reportedLimit(rule, crossed), decimals,
+    message: screen.head + fmt(shown, decimals) + (crossed === 'max' ? screen.above : crossed === 'min' ? screen.below : screen.within),
+    nutrient, lines,
     fields: nutrient === 'fluid' ? ['volumeMl'] : nutrient === 'lipidRate' ? ['hours'] : [],
+    within: crossed === null,
   });
-  return crossed ? f : asInfo(f);
 }
 
 /**
@@ -96,11 +164,11 @@ function rangeFinding(bag: Bag, nutrient: DoseNutrient, rule: Rule): Finding | n
  */
 export const doseRange: Check = (bag, policy) => {
   if (bag.finalVolumeMl.isZero()) return [];
+  const screens = doseScreens(policy, bag.order.patient.ageGroup);
+  const lines = contributingLines(bag, screens);
   const out: Finding[] = [];
-  for (const nutrient of DOSE_NUTRIENTS) {
-    const rule = doseRangeFor(policy, nutrient, bag.order.patient.ageGroup);
-    if (!rule || (!rule.min && !rule.max)) continue;
-    const f = rangeFinding(bag, nutrient, rule);
+  for (let i = 0; i < screens.length; i++) {
+    const f = rangeFinding(bag, screens[i]!, lines[i]!);
     if (f) out.push(f);
   }
   return out;

@@ -1,7 +1,14 @@
 import { fmt, fmtTrim } from '../format.ts';
 import { girRuleFor } from '../policy.ts';
+import type { Bag } from '../compute/bag.ts';
 import { fromRule, type Check } from '../findings.ts';
-import { asInfo, outside, rangeText, reportedLimit, AGE_LABEL, DEFER } from './limits.ts';
+import { outside, rangeText, reportedLimit, AGE_LABEL, DEFER } from './limits.ts';
+
+function dextroseLines(bag: Bag): number[] {
+  const out: number[] = [];
+  for (const l of bag.lines) if (l.inBag && l.product.role === 'dextrose') out.push(l.line.index);
+  return out;
+}
 
 /**
  * Glucose infusion rate (`gir`) against the age group's range, or for children the range of
@@ -23,10 +30,10 @@ export const gir: Check = (bag, policy) => {
     : crossed === 'min'
       ? `GIR ${fmt(value, 2)} mg/kg/min is below the range for ${who}, ${range}: a risk of hypoglycaemia unless glucose comes from another infusion. ${DEFER}`
       : `GIR ${fmt(value, 2)} mg/kg/min is within the range for ${who}, ${range}.`;
-  const f = fromRule('gir', rule, {
+  return [fromRule('gir', rule, {
     value, limit: reportedLimit(rule, crossed), decimals: 2, message,
-    lines: bag.lines.filter((l) => l.product.role === 'dextrose' && l.inBag).map((l) => l.line.index),
+    lines: dextroseLines(bag),
     fields: ['hours'],
-  });
-  return [crossed ? f : asInfo(f)];
+    within: crossed === null,
+  })];
 };

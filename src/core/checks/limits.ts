@@ -1,7 +1,6 @@
 import type { D } from '../decimal.ts';
 import type { AgeGroup } from '../order.ts';
 import type { Rule } from '../policy.ts';
-import type { Finding } from '../findings.ts';
 
 /** Decimal places at which a value meets its bound (see `settled`). */
 const COMPARE_PLACES = 9;
@@ -52,11 +51,6 @@ export function reportedLimit(rule: Pick<Rule, 'min' | 'max'>, crossed: 'min' | 
   if (crossed === 'min') return rule.min;
   if (crossed === 'max') return rule.max;
   return rule.max ?? rule.min;
-}
-
-/** The same finding shown as information: the value was screened and is within its limit. */
-export function asInfo(f: Finding): Finding {
-  return { ...f, severity: 'info' };
 }
 
 /** How an age group reads in a message. */

@@ -1,8 +1,14 @@
 import { fmt } from '../format.ts';
 import { ruleFor } from '../policy.ts';
-import { perLitreOf } from '../compute/bag.ts';
+import { perLitreOf, type Bag } from '../compute/bag.ts';
 import { fromRule, type Check } from '../findings.ts';
-import { asInfo, outside, AGE_LABEL, DEFER } from './limits.ts';
+import { outside, AGE_LABEL, DEFER } from './limits.ts';
+
+function potassiumLines(bag: Bag): number[] {
+  const out: number[] = [];
+  for (const l of bag.lines) if (l.inBag && l.stock.holds.has('K')) out.push(l.line.index);
+  return out;
+}
 
 /**
  * Potassium concentration on a peripheral bag (`potassium-peripheral`), mmol/L, against the age
@@ -15,13 +21,13 @@ export const potassiumPeripheral: Check = (bag, policy) => {
   const k = perLitreOf(bag, bag.speciesMmol.K);
   if (!rule?.max || !k.gt(0)) return [];
   const over = outside(k, rule) === 'max';
-  const f = fromRule('potassium-peripheral', rule, {
+  return [fromRule('potassium-peripheral', rule, {
     value: k, limit: rule.max, decimals: 1,
     message: over
       ? `Potassium ${fmt(k, 1)} mmol/L is over the peripheral limit of ${rule.max.toString()} mmol/L for ${AGE_LABEL[bag.order.patient.ageGroup]}: concentrated potassium irritates a peripheral vein. Give it centrally, raise the volume or lower the potassium. ${DEFER}`
       : `Potassium ${fmt(k, 1)} mmol/L is within the peripheral limit of ${rule.max.toString()} mmol/L.`,
-    lines: bag.lines.filter((l) => l.inBag && l.stock.holds.has('K')).map((l) => l.line.index),
+    lines: potassiumLines(bag),
     fields: ['route', 'volumeMl'],
-  });
-  return [over ? f : asInfo(f)];
+    within: !over,
+  })];
 };

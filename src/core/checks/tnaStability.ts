@@ -1,24 +1,26 @@
-import { D, ZERO, sum } from '../decimal.ts';
+import { D, ZERO } from '../decimal.ts';
 import { fmt } from '../format.ts';
 import { ruleFor, type Rule } from '../policy.ts';
 import { perLitre, type Bag } from '../compute/bag.ts';
 import { fromRule, type Check, type Finding } from '../findings.ts';
-import { asInfo, outside, rangeText, reportedLimit, DEFER } from './limits.ts';
+import { outside, rangeText, reportedLimit, DEFER } from './limits.ts';
+import { GROUP, groupsOf } from './lineGroups.ts';
 
 // Dextrose monohydrate C6H12O6·H2O 198.17 g/mol and anhydrous glucose 180.16 g/mol (IUPAC atomic weights):
 // the ASPEN minimum is written for the monohydrate, so anhydrous grams count × 198.17/180.16.
 const MONOHYDRATE_PER_ANHYDROUS = new D('198.17').div('180.16');
-const CATIONS = ['Na', 'K', 'Ca', 'Mg'] as const;
+const CATIONS = GROUP.Na | GROUP.K | GROUP.Ca | GROUP.Mg;
 
 /** Final dextrose % counted as monohydrate (hydrous) dextrose, the basis of the ASPEN 2014 minimum. */
 export function dextroseMonohydratePercent(bag: Bag): D {
   if (bag.finalVolumeMl.isZero()) return ZERO;
-  const grams = sum(bag.lines.filter((l) => l.product.role === 'dextrose' && l.product.nutrient).map((l) => {
+  let grams = ZERO;
+  for (const l of bag.lines) {
     const n = l.product.nutrient;
-    if (!n) return ZERO;
+    if (l.product.role !== 'dextrose' || !n) continue;
     const g = n.gramsPerMl.times(l.volumeMl);
-    return n.basis === 'anhydrous' ? g.times(MONOHYDRATE_PER_ANHYDROUS) : g;
-  }));
+    grams = grams.plus(n.basis === 'anhydrous' ? g.times(MONOHYDRATE_PER_ANHYDROUS) : g);
+  }
   return grams.div(bag.finalVolumeMl).times(100);
 }
 
@@ -40,14 +42,31 @@ export function criticalAggregationNumber(loads: { monovalent: D; divalent: D; t
 function minimumFinding(rule: Rule | null, value: D, what: string, nutrient: string, lines: number[]): Finding | null {
   if (!rule?.min) return null;
   const crossed = outside(value, rule);
-  const f = fromRule('tna-stability', rule, {
+  return fromRule('tna-stability', rule, {
     value, limit: reportedLimit(rule, crossed), decimals: 2, screen: `${nutrient}-minimum`, nutrient,
     message: crossed === 'min'
       ? `3-in-1 final ${what} ${fmt(value, 2)}% is below the stability minimum of ${rule.min.toString()}%: the emulsion is less likely to stay stable for the usual hang and storage time. Consider a 2-in-1 with the lipid given separately, or shorten the storage time. ${DEFER}`
       : `3-in-1 final ${what} ${fmt(value, 2)}% meets the stability minimum (${rangeText(rule)}).`,
-    lines,
+    lines, within: crossed === null,
   });
-  return crossed ? f : asInfo(f);
+}
+
+/** The lines each screen names, found in one pass over the lines in the bag. */
+interface ScreenLines { aminoAcids: number[]; dextrose: number[]; lipid: number[]; divalent: number[]; cations: number[] }
+
+function screenLines(bag: Bag): ScreenLines {
+  const out: ScreenLines = { aminoAcids: [], dextrose: [], lipid: [], divalent: [], cations: [] };
+  for (const l of bag.lines) {
+    if (!l.inBag) continue;
+    const groups = groupsOf(l.product);
+    const index = l.line.index;
+    if (groups & GROUP.aminoAcids) out.aminoAcids.push(index);
+    if (groups & GROUP.dextrose) out.dextrose.push(index);
+    if (groups & GROUP.lipid) out.lipid.push(index);
+    if (groups & (GROUP.Ca | GROUP.Mg)) out.divalent.push(index);
+    if (groups & CATIONS) out.cations.push(index);
+  }
+  return out;
 }
 
 /**
@@ -59,38 +78,40 @@ function minimumFinding(rule: Rule | null, value: D, what: string, nutrient: str
 export const tnaStability: Check = (bag, policy) => {
   if (!bag.grams.lipid.gt(0) || bag.finalVolumeMl.isZero()) return [];
   const age = bag.order.patient.ageGroup;
-  const linesOf = (role: string) => bag.lines.filter((l) => l.product.role === role && l.inBag).map((l) => l.line.index);
-  const out: (Finding | null)[] = [
-    minimumFinding(ruleFor(policy, 'tna-amino-acids-min', age), bag.percent.aminoAcids, 'amino acids', 'amino-acids', linesOf('amino-acids')),
-    minimumFinding(ruleFor(policy, 'tna-dextrose-min', age), dextroseMonohydratePercent(bag), 'dextrose (as monohydrate)', 'dextrose', linesOf('dextrose')),
-    minimumFinding(ruleFor(policy, 'tna-lipid-min', age), bag.percent.lipid, 'lipid', 'lipid', linesOf('lipid')),
+  const lines = screenLines(bag);
+  const out: Finding[] = [];
+  const minimums = [
+    minimumFinding(ruleFor(policy, 'tna-amino-acids-min', age), bag.percent.aminoAcids, 'amino acids', 'amino-acids', lines.aminoAcids),
+    minimumFinding(ruleFor(policy, 'tna-dextrose-min', age), dextroseMonohydratePercent(bag), 'dextrose (as monohydrate)', 'dextrose', lines.dextrose),
+    minimumFinding(ruleFor(policy, 'tna-lipid-min', age), bag.percent.lipid, 'lipid', 'lipid', lines.lipid),
   ];
+  for (const f of minimums) if (f) out.push(f);
   const loads = cationLoads(bag);
-  const divalentLines = bag.lines.filter((l) => l.inBag && (l.stock.holds.has('Ca') || l.stock.holds.has('Mg'))).map((l) => l.line.index);
+  const divalentText = fmt(loads.divalent, 2);
   const divalentRule = ruleFor(policy, 'tna-divalent', age);
   if (divalentRule?.max) {
     const crossed = outside(loads.divalent, divalentRule);
-    const f = fromRule('tna-stability', divalentRule, {
+    out.push(fromRule('tna-stability', divalentRule, {
       value: loads.divalent, limit: divalentRule.max, decimals: 2, screen: 'divalent-cations',
       message: crossed
-        ? `Divalent cations (calcium + magnesium) ${fmt(loads.divalent, 2)} mmol/L are over the 3-in-1 limit of ${divalentRule.max.toString()} mmol/L: divalent cations destabilise the emulsion. ${DEFER}`
-        : `Divalent cations (calcium + magnesium) ${fmt(loads.divalent, 2)} mmol/L are within the 3-in-1 limit (${rangeText(divalentRule)}).`,
-      lines: divalentLines,
-    });
-    out.push(crossed ? f : asInfo(f));
+        ? `Divalent cations (calcium + magnesium) ${divalentText} mmol/L are over the 3-in-1 limit of ${divalentRule.max.toString()} mmol/L: divalent cations destabilise the emulsion. ${DEFER}`
+        : `Divalent cations (calcium + magnesium) ${divalentText} mmol/L are within the 3-in-1 limit (${rangeText(divalentRule)}).`,
+      lines: lines.divalent,
+      within: crossed === null,
+    }));
   }
   const canRule = ruleFor(policy, 'tna-can', age);
   if (canRule) {
     const can = criticalAggregationNumber(loads);
     const crossed = canRule.max ? outside(can, canRule) : null;
-    const formula = `CAN = a + 64b + 729c = ${fmt(loads.monovalent, 2)} + 64 × ${fmt(loads.divalent, 2)} + 729 × ${fmt(loads.trivalent, 2)} = ${fmt(can, 1)} mmol/L (a: Na + K, b: Ca + Mg, c: trivalent cations, each mmol/L)`;
+    const formula = `CAN = a + 64b + 729c = ${fmt(loads.monovalent, 2)} + 64 × ${divalentText} + 729 × ${fmt(loads.trivalent, 2)} = ${fmt(can, 1)} mmol/L (a: Na + K, b: Ca + Mg, c: trivalent cations, each mmol/L)`;
     const threshold = canRule.max ? `; the policy's threshold is ${canRule.max.toString()}` : '; no threshold is set, as no reliable published one exists';
-    const f = fromRule('tna-stability', canRule, {
+    out.push(fromRule('tna-stability', canRule, {
       value: can, limit: canRule.max, decimals: 1, screen: 'critical-aggregation-number',
       message: `Critical aggregation number (information): ${formula}${threshold}.${crossed ? ` It is over the threshold. ${DEFER}` : ''}`,
-      lines: bag.lines.filter((l) => l.inBag && CATIONS.some((s) => l.stock.holds.has(s))).map((l) => l.line.index),
-    });
-    out.push(crossed ? f : asInfo(f));
+      lines: lines.cations,
+      within: crossed === null,
+    }));
   }
-  return out.filter((f): f is Finding => f !== null);
+  return out;
 };
