@@ -567,6 +567,22 @@ export class D {
     return dp <= 22 ? q / POW10[dp]! : Number(`${q}e-${dp}`);
   }
 
+  /**
+   * This value rounded half-even to `dp` decimal places, as the whole number of 10^−dp it makes (12.345 at
+   * 2 places → 1234); NaN when that number is not a safe integer or the value is not finite.
+   */
+  toScaledInteger(dp: number): number {
+    if (this.x !== null) return NaN;
+    if (this.c === 0) return 0;
+    if (this.e >= -dp) {
+      const shift = this.e + dp;
+      if (shift > 15) return NaN;
+      const q = this.c * POW10[shift]!;
+      return q <= MAX && q >= -MAX ? q : NaN;
+    }
+    return this.roundedCoefficient(dp, HALF_EVEN);
+  }
+
   /** The signed coefficient of this value rounded to `dp` places, at exponent −dp (when this.e < −dp). */
   private roundedCoefficient(dp: number, rm: number): number {
     const negative = this.c < 0;

@@ -31,5 +31,12 @@ describe('fmt and fmtTrim', () => {
       expect(fmt(value, places)).toBe(new D(reported).toFixed(places));
       expect(fmtTrim(value, places)).toBe(new D(reported).toString());
     }), { numRuns: 2000 });
+    // Engine results (15 digits), ties at the last shown place among them.
+    const result = fc.tuple(fc.boolean(), fc.integer({ min: 0, max: 999_999_999_999 }), fc.constantFrom('', '5', '50', '500'), fc.integer({ min: -16, max: 2 }))
+      .map(([negative, digits, tie, exponent]) => `${negative ? '-' : ''}${digits}${tie}e${exponent}`);
+    fc.assert(fc.property(result, fc.integer({ min: 0, max: 4 }), (text, places) => {
+      const value = new D(text);
+      expect(fmt(value, places)).toBe(new D(round(value, places)).toFixed(places));
+    }), { numRuns: 4000 });
   });
 });

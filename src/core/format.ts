@@ -22,8 +22,22 @@ function shown(value: D, places: number): D {
   return rounded.abs().lt(limit) ? rounded : new D(round(value, places));
 }
 
+// "0", "00", … for padding a scaled integer's digits (places are at most a handful).
+const ZEROS: readonly string[] = Array.from({ length: 24 }, (_, i) => '0'.repeat(i));
+
 /** A decimal as display text with fixed decimals (half-even); thousands are not grouped. */
 export function fmt(value: D, places: number): string {
+  // The common case, written straight from the rounded digits: the value rounded to `places` as a whole
+  // number of 10^−places below 10¹⁵ (so the report's number holds it exactly, as shown() requires).
+  const q = value.toScaledInteger(places);
+  if (q < 1e15 && q > -1e15 && places < ZEROS.length) {
+    let text = String(q < 0 ? -q : q);
+    if (places > 0) {
+      if (text.length <= places) text = ZEROS[places + 1 - text.length]! + text;
+      text = `${text.slice(0, text.length - places)}.${text.slice(text.length - places)}`;
+    }
+    return q < 0 ? `-${text}` : text;
+  }
   return shown(value, places).toFixed(places);
 }
 

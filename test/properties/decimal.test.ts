@@ -89,6 +89,11 @@ describe('the engine decimal gives decimal.js results at 15 digits', { timeout: 
       .map(([negative, c, e, tie]) => `${negative ? '-' : ''}${String(c).slice(0, 15 - tie.length)}${tie}e${e}`);
     fc.assert(fc.property(result, fc.integer({ min: 0, max: 4 }), (t, dp) => {
       expect(Object.is(new D(t).toRoundedNumber(dp), new Ref(t).toDecimalPlaces(dp).toNumber())).toBe(true);
+      // The same rounding as a whole number of 10^−dp (what display text is written from).
+      const scaled = new Ref(t).toDecimalPlaces(dp).times(new Ref(10).pow(dp));
+      const mine = new D(t).toScaledInteger(dp);
+      if (scaled.abs().lte(Number.MAX_SAFE_INTEGER)) expect(mine === scaled.toNumber() || (mine === 0 && scaled.isZero())).toBe(true);
+      else expect(mine).toBeNaN();
     }), RUNS);
     fc.assert(fc.property(text, (t) => {
       same(new D(t).round(), new Ref(t).round());
