@@ -187,14 +187,13 @@ export function computeBag(order: Order, policy: Policy): Bag {
   }
   const speciesMmol = speciesRecord(mmol);
   const grams = { dextrose: dextroseG, aminoAcids: aminoAcidsG, lipid: lipidG };
-  const kcal = { dextrose: dextroseKcal, aminoAcids: aminoAcidsKcal, lipid: lipidKcal, other: otherKcal };
   const particleOsm = perLitre(particle, finalVolumeMl);
   const labelOsm = perLitre(label, finalVolumeMl);
   const method: Osmolarity['method'] =
     policy.reportedOsmolarity === 'higher' ? (labelOsm.gt(particleOsm) ? 'labelSum' : 'particle') : policy.reportedOsmolarity;
   const reported = method === 'particle' ? particleOsm : labelOsm;
   const nitrogenG = grams.aminoAcids.div(policy.reference.gramsAminoAcidPerGramNitrogen.value);
-  const nonProtein = kcal.dextrose.plus(kcal.lipid);
+  const nonProtein = dextroseKcal.plus(lipidKcal);
   const minutes = order.hours.times(60);
   return {
     order, lines, finalVolumeMl, addedVolumeMl,
@@ -206,7 +205,10 @@ export function computeBag(order: Order, policy: Policy): Bag {
       aminoAcids: percentOf(grams.aminoAcids, finalVolumeMl),
       lipid: percentOf(grams.lipid, finalVolumeMl),
     },
-    kcal: { ...kcal, total: kcal.dextrose.plus(kcal.aminoAcids).plus(kcal.lipid).plus(kcal.other), nonProtein },
+    kcal: {
+      dextrose: dextroseKcal, aminoAcids: aminoAcidsKcal, lipid: lipidKcal, other: otherKcal,
+      total: dextroseKcal.plus(aminoAcidsKcal).plus(lipidKcal).plus(otherKcal), nonProtein,
+    },
     nitrogenG,
     npcToN: nitrogenG.isZero() ? null : nonProtein.div(nitrogenG),
     girMgPerKgPerMin: grams.dextrose.times(THOUSAND).div(weight.times(minutes)),
