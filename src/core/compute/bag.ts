@@ -1,6 +1,6 @@
 import { D, ZERO, THOUSAND } from '../decimal.ts';
 import { SPECIES_IDS, speciesRecord, type SpeciesId } from '../species.ts';
-import type { Order, OrderLine, BaseUnit } from '../order.ts';
+import type { Order, OrderLine, BaseUnit, Route } from '../order.ts';
 import type { Policy } from '../policy.ts';
 import type { Product } from '../catalog.ts';
 import { lineVolumeMl, perDayAmount } from './volumes.ts';
@@ -218,6 +218,23 @@ export function computeBag(order: Order, policy: Policy): Bag {
     aluminumMcg: aluminum,
     aluminumMcgPerKgPerDay: aluminum.div(weight),
     derived: { weightKg: weight, finalVolumeMl, perKg: { keys: [], values: [] }, perLitre: { keys: [], values: [] } },
+  };
+}
+
+/**
+ * The same bag for the same order on another route: every figure is shared (none depends on the route),
+ * only the order's route differs. Written field by field: a spread of an object this size is a slow
+ * generic copy, and the solver asks this of every central bag.
+ */
+export function bagOnRoute(bag: Bag, route: Route): Bag {
+  const o = bag.order;
+  const order: Order = { id: o.id, patient: o.patient, route, volumeMl: o.volumeMl, hours: o.hours, lines: o.lines, ions: o.ions, note: o.note };
+  return {
+    order, lines: bag.lines, finalVolumeMl: bag.finalVolumeMl, addedVolumeMl: bag.addedVolumeMl, hours: bag.hours,
+    rateMlPerHour: bag.rateMlPerHour, speciesMmol: bag.speciesMmol, grams: bag.grams, percent: bag.percent, kcal: bag.kcal,
+    nitrogenG: bag.nitrogenG, npcToN: bag.npcToN, girMgPerKgPerMin: bag.girMgPerKgPerMin, osmolarity: bag.osmolarity,
+    totalMOsm: bag.totalMOsm, osmoticPressureMmHg: bag.osmoticPressureMmHg, aluminumMcg: bag.aluminumMcg,
+    aluminumMcgPerKgPerDay: bag.aluminumMcgPerKgPerDay, derived: bag.derived,
   };
 }
 

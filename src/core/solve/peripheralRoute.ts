@@ -1,4 +1,5 @@
 import { fmt } from '../format.ts';
+import { bagOnRoute } from '../compute/bag.ts';
 import { ruleFor, type Policy } from '../policy.ts';
 import { propose, appearsText, failsOsmolarity } from './consequences.ts';
 import type { Checked, Evaluate, Suggestion } from './suggestion.ts';
@@ -15,7 +16,7 @@ export function peripheralRouteSuggestion(current: Checked, policy: Policy, eval
   if (!limit) return { kind: 'peripheral-route', status: 'unavailable', message: 'The policy sets no peripheral osmolarity limit for this age group.', notes: [] };
   // The bag does not depend on the route: over the limit now means over it peripherally, with no re-check.
   const over = current.bag.osmolarity.reported.gt(limit);
-  const next = over ? null : evaluate({ ...current.bag, order: { ...order, route: 'peripheral' } }, 'route');
+  const next = over ? null : evaluate(bagOnRoute(current.bag, 'peripheral'), 'route');
   const osm = current.bag.osmolarity.reported;
   if (next === null || failsOsmolarity(next.findings)) {
     return {
