@@ -421,6 +421,21 @@ export class D {
     const nB = digits(B);
     let s = PRECISION - 1 + nB - nA;
     if ((nA <= nB ? A * POW10[nB - nA]! : A) < (nA <= nB ? B : B * POW10[nA - nB]!)) s += 1;
+    if (s <= 22 && B * POW10[s]! <= MAX) {
+      // Long division in two exact steps (the commonest case, a divisor of a few digits): A = qa·B + ra,
+      // then ra·10^s = qb·B + rb, both products below 2⁵³; floor(A·10^s ÷ B) = qa·10^s + qb, remainder rb.
+      const scale = POW10[s]!;
+      let qa = Math.floor(A / B);
+      let ra = A - qa * B;
+      if (ra < 0) { qa -= 1; ra += B; } else if (ra >= B) { qa += 1; ra -= B; }
+      const t = ra * scale;
+      let qb = Math.floor(t / B);
+      let rb = t - qb * B;
+      if (rb < 0) { qb -= 1; rb += B; } else if (rb >= B) { qb += 1; rb -= B; }
+      remainder = rb;
+      const q = roundQuotient(qa * scale + qb, B, HALF_EVEN, negative);
+      return canonical(negative ? -q : q, this.e - v.e - s);
+    }
     let hi: number;
     let lo: number;
     if (s <= 22) {

@@ -56,6 +56,14 @@ describe('the engine decimal gives decimal.js results at 15 digits', { timeout: 
     }), RUNS);
   });
 
+  test('division by a short figure (a stock strength): every dividend size, ties and exact quotients', () => {
+    const dividend = fc.tuple(fc.boolean(), fc.oneof(fc.integer({ min: 1, max: 999 }), fc.integer({ min: 1, max: 999_999_999_999_999 })), fc.integer({ min: -16, max: 4 }))
+      .map(([negative, c, e]) => `${negative ? '-' : ''}${c}e${e}`);
+    const divisor = fc.tuple(fc.oneof(fc.integer({ min: 1, max: 9 }), fc.integer({ min: 1, max: 99_999 }), fc.integer({ min: 1, max: 9_999_999 }), fc.constantFrom(2, 4, 8, 16, 3, 7, 465, 2325)), fc.integer({ min: -8, max: 3 }))
+      .map(([c, e]) => `${c}e${e}`);
+    fc.assert(fc.property(dividend, divisor, (a, b) => same(new D(a).div(b), new Ref(a).div(b))), RUNS);
+  });
+
   test('chains of operations keep agreeing (results feed the next operation)', () => {
     fc.assert(fc.property(fc.array(fc.tuple(fc.constantFrom('plus', 'minus', 'times', 'div'), text), { minLength: 2, maxLength: 12 }), text, (steps, start) => {
       let mine = new D(start);
