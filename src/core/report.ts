@@ -7,7 +7,7 @@ import type { Catalog } from './catalog.ts';
 import type { Finding, Verdict } from './findings.ts';
 import { AGE_GROUPS, ROUTES, type BaseUnit } from './order.ts';
 import { as, mmolToMEq } from './units.ts';
-import { predictedOsmolalityField, predictedOsmolalityReportSchema } from './compute/osmolality.ts';
+import { predictedOsmolalityReport, predictedOsmolalityReportSchema } from './compute/osmolality.ts';
 import { suggestionReportSchema } from './solve/report.ts';
 
 const num = z.number().refine(Number.isFinite, 'must be a finite number');
@@ -263,15 +263,16 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
   const temp = policy.reference.osmoticPressureTemperatureC.value;
   const reported = bag.osmolarity.reported;
   const species = speciesTotals(bag);
-  const information: Report['information'] = {
-    osmoticPressureMmHg: round(bag.osmoticPressureMmHg, 0),
-    mmHgPerMOsmPerL: round(mmHgPerMOsmPerL(temp), 2),
-    temperatureC: round(temp, 1),
-    plasmaOsmolality: { min: round(plasma.min, 0), max: round(plasma.max, 0), unit: plasma.unit, source: plasma.source },
-    timesPlasma: { low: roundQuotient(reported, plasma.max, 0, 2), high: roundQuotient(reported, plasma.min, 0, 2) },
-  };
-  const predicted = predictedOsmolalityField(bag).predictedOsmolality;
-  if (predicted) information.predictedOsmolality = predicted;
+  const osmoticPressureMmHg = round(bag.osmoticPressureMmHg, 0);
+  const mmHg = round(mmHgPerMOsmPerL(temp), 2);
+  const temperatureC = round(temp, 1);
+  const plasmaOsmolality = { min: round(plasma.min, 0), max: round(plasma.max, 0), unit: plasma.unit, source: plasma.source };
+  const timesPlasma = { low: roundQuotient(reported, plasma.max, 0, 2), high: roundQuotient(reported, plasma.min, 0, 2) };
+  const predictedOsmolality = predictedOsmolalityReport(bag);
+  // One literal with or without the prediction (a key added to a finished literal goes to a separate store).
+  const information: Report['information'] = predictedOsmolality
+    ? { osmoticPressureMmHg, mmHgPerMOsmPerL: mmHg, temperatureC, plasmaOsmolality, timesPlasma, predictedOsmolality }
+    : { osmoticPressureMmHg, mmHgPerMOsmPerL: mmHg, temperatureC, plasmaOsmolality, timesPlasma };
   return {
     format: 'osmocount-report',
     version: 1,

@@ -204,13 +204,19 @@ export const predictedOsmolalityReportSchema = z.object({
   note: z.string(),
 });
 
-/** The report field for a bag, rounded at this edge to 0.1 mOsm/kg; `{}` when nothing is predicted. */
-export function predictedOsmolalityField(bag: Bag): { predictedOsmolality?: z.infer<typeof predictedOsmolalityReportSchema> } {
+/** `information.predictedOsmolality` of a bag's report, rounded at this edge to 0.1 mOsm/kg; null when nothing is predicted. */
+export function predictedOsmolalityReport(bag: Bag): z.infer<typeof predictedOsmolalityReportSchema> | null {
   const p = predictOsmolality(bag);
-  if (!p) return {};
+  if (!p) return null;
   const estimates: z.infer<typeof predictedOsmolalityReportSchema>['estimates'] = [];
   for (const e of p.estimates) {
     estimates.push({ method: e.method, label: e.label, value: round(e.value, 1), unit: e.unit, source: e.source, status: e.status, notes: e.notes });
   }
-  return { predictedOsmolality: { estimates, note: p.note } };
+  return { estimates, note: p.note };
+}
+
+/** The report field for a bag (see predictedOsmolalityReport); `{}` when nothing is predicted. */
+export function predictedOsmolalityField(bag: Bag): { predictedOsmolality?: z.infer<typeof predictedOsmolalityReportSchema> } {
+  const p = predictedOsmolalityReport(bag);
+  return p ? { predictedOsmolality: p } : {};
 }
