@@ -1,13 +1,13 @@
 import { z } from 'zod';
-import { round } from './decimal.ts';
+import { round, type D } from './decimal.ts';
 import { SPECIES, SPECIES_IDS, isCharged, speciesRecord, type SpeciesId } from './species.ts';
-import { lineShare, perKgOf, perLitreOf, mmHgPerMOsmPerL, type Bag, type BagLine } from './compute/bag.ts';
+import { perLitreOf, mmHgPerMOsmPerL, type Bag, type BagLine } from './compute/bag.ts';
 import { ruleFor, SEVERITIES, type Policy } from './policy.ts';
 import type { Catalog } from './catalog.ts';
 import type { Finding, Verdict } from './findings.ts';
 import { AGE_GROUPS, ROUTES, type BaseUnit } from './order.ts';
 import { as, mmolToMEq } from './units.ts';
-import { predictedOsmolalityField, predictedOsmolalityReportSchema } from './compute/osmolality.ts';
+import { predictedOsmolalityReport, predictedOsmolalityReportSchema } from './compute/osmolality.ts';
 import { suggestionReportSchema } from './solve/report.ts';
 
 const num = z.number().refine(Number.isFinite, 'must be a finite number');
@@ -97,61 +97,160 @@ export type Report = z.infer<typeof reportSchema>;
 
 type SpeciesTotals = Pick<Report['totals'], 'mmolPerL' | 'mEqPerL' | 'mmolPerDay' | 'mmolPerKgPerDay'>;
 
+// How each species' mEq/L is written, by index in SPECIES_IDS: 0 when it has no charge, 1 when it is
+// monovalent (its mEq is its mmol: × 1 changes no digit), 2 when its mmol/L is multiplied by its valence.
+const MEQ_RULE: readonly number[] = SPECIES_IDS.map((s) => (!isCharged(s) ? 0 : Math.abs(SPECIES[s].charge ?? 0) === 1 ? 1 : 2));
+
+// Scratch rows for speciesTotals, reused by every call: speciesRecord copies their values out.
+const perLRow: number[] = SPECIES_IDS.map(() => 0);
+const mEqPerLRow: number[] = SPECIES_IDS.map(() => 0);
+const perDayRow: number[] = SPECIES_IDS.map(() => 0);
+const perKgRow: number[] = SPECIES_IDS.map(() => 0);
+
 /** Every species' totals, each rounded once; a species the bag does not hold is 0 throughout. */
 function speciesTotals(bag: Bag): SpeciesTotals {
   const n = SPECIES_IDS.length;
-  const perL = new Array<number>(n).fill(0);
-  const mEqPerL = new Array<number>(n).fill(0);
-  const perDay = new Array<number>(n).fill(0);
-  const perKg = new Array<number>(n).fill(0);
+  const V = bag.finalVolumeMl;
+  const w = bag.order.patient.weightKg;
   for (let k = 0; k < n; k++) {
     const s = SPECIES_IDS[k]!;
     const mmol = bag.speciesMmol[s];
-    if (mmol.isZero()) continue;
-    const litre = perLitreOf(bag, mmol);
-    perL[k] = round(litre, 2);
-    // A monovalent ion's mEq is its mmol (× 1 changes no digit).
-    mEqPerL[k] = !isCharged(s) ? 0 : Math.abs(SPECIES[s].charge ?? 0) === 1 ? perL[k]! : round(mmolToMEq(s, as(litre, 'mmol')), 2);
-    perDay[k] = round(mmol, 2);
-    perKg[k] = round(perKgOf(bag, mmol), 3);
+    if (mmol.isZero()) {
+      perLRow[k] = 0;
+      mEqPerLRow[k] = 0;
+      perDayRow[k] = 0;
+      perKgRow[k] = 0;
+      continue;
+    }
+    if (MEQ_RULE[k] === 2) {
+      const litre = perLitreOf(bag, mmol);
+      perLRow[k] = round(litre, 2);
+      mEqPerLRow[k] = round(mmolToMEq(s, as(litre, 'mmol')), 2);
+    } else {
+      // mmol ÷ V × 1000, as perLitreOf makes it, rounded without the decimal when a float settles it.
+      const perL = V.isZero() ? 0 : roundQuotient(mmol, V, 3, 2);
+      perLRow[k] = perL;
+      mEqPerLRow[k] = MEQ_RULE[k] === 1 ? perL : 0;
+    }
+    perDayRow[k] = round(mmol, 2);
+    perKgRow[k] = roundQuotient(mmol, w, 0, 3);
   }
-  return { mmolPerL: speciesRecord(perL), mEqPerL: speciesRecord(mEqPerL), mmolPerDay: speciesRecord(perDay), mmolPerKgPerDay: speciesRecord(perKg) };
+  return { mmolPerL: speciesRecord(perLRow), mEqPerL: speciesRecord(mEqPerLRow), mmolPerDay: speciesRecord(perDayRow), mmolPerKgPerDay: speciesRecord(perKgRow) };
 }
 
 // "mEq" → "mEq/kg": the per-kg unit of each base unit, written once.
 const PER_KG_UNIT: Readonly<Record<BaseUnit, string>> = { mL: 'mL/kg', g: 'g/kg', mEq: 'mEq/kg', mmol: 'mmol/kg' };
 
-/** One line of the report; a figure shared by two fields is rounded once. */
-function reportLine(bag: Bag, l: BagLine): Report['lines'][number] {
+/** Powers of ten as doubles, exact up to 10²² (a table: `10 ** n` is a library call). */
+const POW10: readonly number[] = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22];
+
+/**
+ * round(a ÷ b × 10^shift, places) — the quotient rounded to 15 digits as `div` rounds it, × 10^shift (which
+ * only moves its exponent), rounded half-even to `places`: the very float round() gives — without making a
+ * decimal when a float estimate settles it. Operands whose exponents lie within ±22 read into floats
+ * correctly rounded (their coefficients are safe integers), so the estimate S of s = a ÷ b × 10^(shift+places)
+ * is within 4.5·10⁻¹⁶·|s| of s, and the 15-digit quotient within 5·10⁻¹⁵·|s|: when S lies further than
+ * 10⁻¹⁴·|S| from every half-way point, both round to the whole number nearest S. Otherwise (a near-tie, or
+ * a value that is not a plain finite decimal) the decimals decide. For every figure the report divides by
+ * the weight, the volume or a total. Example: 1 ÷ 3 × 100 at one place → 33.3.
+ */
+export function roundQuotient(a: D, b: D, shift: number, places: number): number {
+  if (a.x === null && b.x === null && b.c !== 0 && a.e >= -22 && a.e <= 22 && b.e >= -22 && b.e <= 22 && shift + places <= 22) {
+    const s = (a.toNumber() / b.toNumber()) * POW10[shift + places]!;
+    const k = Math.round(s);
+    const size = Math.abs(s);
+    if (size < 2 ** 52 && Math.abs(s - k) < 0.5 - size * 1e-14) return k === 0 ? 0 : k / POW10[places]!;
+  }
+  const q = a.div(b);
+  return round(shift === 0 ? q : q.times(POW10[shift]!), places);
+}
+
+/**
+ * A per-kg line's amount per kg per day, rounded to 4 places, when it is the ordered amount itself: the
+ * per-day amount is the ordered amount × weight, and when that product is exact (its coefficients'
+ * product below 10¹⁵), ÷ weight gives the ordered amount back, digit for digit. Null otherwise.
+ */
+function orderedPerKg(ordered: D, orderedRounded: number, perDay: D, w: D): number | null {
+  if (ordered.x !== null || w.x !== null || perDay.x !== null) return null;
+  const p = ordered.c * w.c;
+  if (!(p < 1e15 && p > -1e15)) return null;
+  // perDay equals p × 10^(ordered.e + w.e) (its coefficient has no trailing zeros: p may have some).
+  const shift = perDay.e - (ordered.e + w.e);
+  return shift >= 0 && shift <= 15 && perDay.c * POW10[shift]! === p ? orderedRounded : null;
+}
+
+/**
+ * One line of the report; a figure shared by two fields is rounded once. `particle`: the bag reports the
+ * particle osmolarity; `total`: the bag's mOsm under its method (a line's share is its part of it).
+ */
+function reportLine(l: BagLine, particle: boolean, total: D, w: D): Report['lines'][number] {
   const line = l.line;
-  const w = bag.order.patient.weightKg;
-  const amount = line.kind === 'amount' ? round(line.amount, 4) : null;
+  const isAmount = line.kind === 'amount';
+  const amount = isAmount ? round(line.amount, 4) : null;
   const particleMOsm = round(l.particleMOsm, 2);
   // A stock without a label value counts its particles in the label sum: the same decimal.
   const labelMOsm = l.labelMOsm === l.particleMOsm ? particleMOsm : round(l.labelMOsm, 2);
-  // A line not ordered per kg delivers its amount per day as written: the same decimal.
-  const perDay = l.perDay
-    ? { amount: amount !== null && line.kind === 'amount' && l.perDay.amount === line.amount ? amount : round(l.perDay.amount, 4), unit: l.perDay.unit }
-    : null;
+  let perDay: Report['lines'][number]['perDay'] = null;
+  let perKgPerDay: Report['lines'][number]['perKgPerDay'] = null;
+  if (l.perDay) {
+    const perDayAmount = l.perDay.amount;
+    // A line not ordered per kg delivers its amount per day as written: the same decimal.
+    const ordered = amount !== null && isAmount && perDayAmount === line.amount;
+    perDay = { amount: ordered ? amount : round(perDayAmount, 4), unit: l.perDay.unit };
+    const perKg = amount !== null && isAmount && !ordered ? orderedPerKg(line.amount, amount, perDayAmount, w) : null;
+    perKgPerDay = { amount: perKg ?? roundQuotient(perDayAmount, w, 0, 4), unit: PER_KG_UNIT[l.perDay.unit] };
+  }
   return {
     index: line.index,
     product: l.product.id,
     name: l.product.name,
     role: l.product.role,
     strength: l.product.strength,
-    fill: line.kind === 'fill',
+    fill: !isAmount,
     amount,
-    unit: line.kind === 'amount' ? line.unit : null,
-    species: line.kind === 'amount' ? line.species : null,
+    unit: isAmount ? line.unit : null,
+    species: isAmount ? line.species : null,
     perDay,
-    perKgPerDay: l.perDay ? { amount: round(l.perDay.amount.div(w), 4), unit: PER_KG_UNIT[l.perDay.unit] } : null,
+    perKgPerDay,
     volumeMl: round(l.volumeMl, 2),
-    mOsm: bag.osmolarity.method === 'particle' ? particleMOsm : labelMOsm,
+    mOsm: particle ? particleMOsm : labelMOsm,
     particleMOsm,
     labelMOsm,
-    sharePercent: round(lineShare(bag, l).times(100), 1),
+    sharePercent: total.isZero() ? 0 : roundQuotient(particle ? l.particleMOsm : l.labelMOsm, total, 2, 1),
     kcal: round(l.kcal, 1),
   };
+}
+
+/** Every line of the report, in the bag's order. */
+function reportLines(bag: Bag): Report['lines'] {
+  const particle = bag.osmolarity.method === 'particle';
+  const total = particle ? bag.totalMOsm.particle : bag.totalMOsm.labelSum;
+  const w = bag.order.patient.weightKg;
+  const lines = bag.lines;
+  const out: Report['lines'] = [];
+  for (let i = 0; i < lines.length; i++) out.push(reportLine(lines[i]!, particle, total, w));
+  return out;
+}
+
+/**
+ * One finding of the report: its decimals rounded, its optional keys last (where the report has always
+ * written them). Each mix of optional keys is one literal: a key added to a finished literal would go to a
+ * separate property store.
+ */
+function reportFinding(f: Finding): Report['findings'][number] {
+  const value = f.value ? round(f.value, f.decimals) : null;
+  const limit = f.limit ? round(f.limit, f.decimals) : null;
+  const { nutrient, screen } = f;
+  if (nutrient === undefined && screen === undefined) {
+    return { code: f.code, severity: f.severity, value, limit, unit: f.unit, message: f.message, source: f.source, lines: f.lines, fields: f.fields };
+  }
+  if (screen === undefined) {
+    return { code: f.code, severity: f.severity, value, limit, unit: f.unit, message: f.message, source: f.source, lines: f.lines, fields: f.fields, nutrient };
+  }
+  if (nutrient === undefined) {
+    return { code: f.code, severity: f.severity, value, limit, unit: f.unit, message: f.message, source: f.source, lines: f.lines, fields: f.fields, screen };
+  }
+  return { code: f.code, severity: f.severity, value, limit, unit: f.unit, message: f.message, source: f.source, lines: f.lines, fields: f.fields, nutrient, screen };
 }
 
 /** Round the bag and its findings into the report, once, at this edge. */
@@ -164,15 +263,16 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
   const temp = policy.reference.osmoticPressureTemperatureC.value;
   const reported = bag.osmolarity.reported;
   const species = speciesTotals(bag);
-  const information: Report['information'] = {
-    osmoticPressureMmHg: round(bag.osmoticPressureMmHg, 0),
-    mmHgPerMOsmPerL: round(mmHgPerMOsmPerL(temp), 2),
-    temperatureC: round(temp, 1),
-    plasmaOsmolality: { min: round(plasma.min, 0), max: round(plasma.max, 0), unit: plasma.unit, source: plasma.source },
-    timesPlasma: { low: round(reported.div(plasma.max), 2), high: round(reported.div(plasma.min), 2) },
-  };
-  const predicted = predictedOsmolalityField(bag).predictedOsmolality;
-  if (predicted) information.predictedOsmolality = predicted;
+  const osmoticPressureMmHg = round(bag.osmoticPressureMmHg, 0);
+  const mmHg = round(mmHgPerMOsmPerL(temp), 2);
+  const temperatureC = round(temp, 1);
+  const plasmaOsmolality = { min: round(plasma.min, 0), max: round(plasma.max, 0), unit: plasma.unit, source: plasma.source };
+  const timesPlasma = { low: roundQuotient(reported, plasma.max, 0, 2), high: roundQuotient(reported, plasma.min, 0, 2) };
+  const predictedOsmolality = predictedOsmolalityReport(bag);
+  // One literal with or without the prediction (a key added to a finished literal goes to a separate store).
+  const information: Report['information'] = predictedOsmolality
+    ? { osmoticPressureMmHg, mmHgPerMOsmPerL: mmHg, temperatureC, plasmaOsmolality, timesPlasma, predictedOsmolality }
+    : { osmoticPressureMmHg, mmHgPerMOsmPerL: mmHg, temperatureC, plasmaOsmolality, timesPlasma };
   return {
     format: 'osmocount-report',
     version: 1,
@@ -184,7 +284,7 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
     volumeMl: round(V, 2),
     hours: round(bag.hours, 2),
     rateMlPerHour: round(bag.rateMlPerHour, 2),
-    lines: bag.lines.map((l) => reportLine(bag, l)),
+    lines: reportLines(bag),
     osmolarity: {
       particle: round(bag.osmolarity.particle, 1),
       labelSum: round(bag.osmolarity.labelSum, 1),
@@ -203,30 +303,20 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
       aminoAcidPercent: round(bag.percent.aminoAcids, 2),
       lipidPercent: round(bag.percent.lipid, 2),
       grams: { dextrose: round(bag.grams.dextrose, 2), aminoAcids: round(bag.grams.aminoAcids, 2), lipid: round(bag.grams.lipid, 2) },
-      gramsPerKg: { dextrose: round(perKgOf(bag, bag.grams.dextrose), 3), aminoAcids: round(perKgOf(bag, bag.grams.aminoAcids), 3), lipid: round(perKgOf(bag, bag.grams.lipid), 3) },
+      gramsPerKg: { dextrose: roundQuotient(bag.grams.dextrose, w, 0, 3), aminoAcids: roundQuotient(bag.grams.aminoAcids, w, 0, 3), lipid: roundQuotient(bag.grams.lipid, w, 0, 3) },
       kcal: {
         dextrose: round(bag.kcal.dextrose, 1), aminoAcids: round(bag.kcal.aminoAcids, 1), lipid: round(bag.kcal.lipid, 1),
         other: round(bag.kcal.other, 1), total: round(bag.kcal.total, 1), nonProtein: round(bag.kcal.nonProtein, 1),
       },
-      kcalPerKg: round(perKgOf(bag, bag.kcal.total), 1),
+      kcalPerKg: roundQuotient(bag.kcal.total, w, 0, 1),
       nitrogenG: round(bag.nitrogenG, 2),
       npcToN: bag.npcToN ? round(bag.npcToN, 0) : null,
       girMgPerKgPerMin: round(bag.girMgPerKgPerMin, 2),
-      fluidMlPerKg: round(perKgOf(bag, V), 1),
+      fluidMlPerKg: roundQuotient(V, w, 0, 1),
       aluminumMcgPerKgPerDay: round(bag.aluminumMcgPerKgPerDay, 2),
     },
     information,
-    findings: findings.map((f) => {
-      const out: Report['findings'][number] = {
-        code: f.code, severity: f.severity,
-        value: f.value ? round(f.value, f.decimals) : null,
-        limit: f.limit ? round(f.limit, f.decimals) : null,
-        unit: f.unit, message: f.message, source: f.source, lines: f.lines, fields: f.fields,
-      };
-      if (f.nutrient !== undefined) out.nutrient = f.nutrient;
-      if (f.screen !== undefined) out.screen = f.screen;
-      return out;
-    }),
+    findings: findings.map(reportFinding),
     verdict,
   };
 }

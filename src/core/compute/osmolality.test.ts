@@ -26,6 +26,22 @@ describe('osmotic-coefficient estimate', () => {
     expect(osmoticCoefficientEstimate(mg).value.toNumber()).toBe(23.548);
   });
 
+  it('splits a stock into its nutrient and its ions: each part at its own φ (UBC coefficient table)', () => {
+    // 1000 mL (catalog per-mL figures): amino acids 10% 500 mL = 0.1 g/mL × 7.302 mOsm/g × 500 = 365.1 (ideal)
+    // + its Na 0.038 and acetate 0.0718 mmol/mL × 500 = 54.9 (no salt in the table: ideal); dextrose 50%
+    // 200 mL = 0.5 × 5.046 × 200 = 504.6 × 1.01 = 509.646; lipid 20% 100 mL: glycerol 0.2443 × 100 = 24.43
+    // (ideal; the fat itself adds none); sodium chloride 10 mL = (4 + 4) × 10 = 80 × 0.93 = 74.4.
+    // 365.1 + 54.9 + 509.646 + 24.43 + 74.4 = 1028.476 mOsm in 1 L.
+    const bag = bagOf({ age: 'adult', weightKg: 70, volumeMl: 1000, lines: [
+      { product: 'amino-acids-10', amount: 500, unit: 'mL' }, { product: 'dextrose-50', amount: 200, unit: 'mL' },
+      { product: 'lipid-20', amount: 100, unit: 'mL' }, { product: 'sodium-chloride-4', amount: 10, unit: 'mL' },
+      { product: 'sterile-water', fill: true },
+    ] });
+    const e = osmoticCoefficientEstimate(bag);
+    expect(e.value.toString()).toBe('1028.476');
+    expect(e.notes[1]).toBe('No coefficient in the table, counted as ideal (φ = 1): Amino acids 10% injection (without added electrolytes); Lipid injectable emulsion 20% (soybean oil).');
+  });
+
   it('names the stocks it had no coefficient for (counted as ideal)', () => {
     const bag = bagOf({ age: 'adult', weightKg: 70, lines: [
       { product: 'amino-acids-10', amount: 500, unit: 'mL' }, { product: 'calcium-gluconate-10', amount: 10, unit: 'mL' },

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { D, ZERO, sum, round } from '../decimal.ts';
+import { D, ZERO, round } from '../decimal.ts';
 import { SPECIES, type SpeciesId } from '../species.ts';
 import { perLitre, perLitreOf, type Bag } from './bag.ts';
 import { stockFigures } from './stock.ts';
@@ -40,22 +40,61 @@ const COEFFICIENTS: readonly Coefficient[] = [
   { solute: 'MgSO4', species: ['Mg', 'sulfate'], phi: new D('0.58') },
 ];
 const GLUCOSE_PHI = new D('1.01');
+const COEFFICIENT_NOTE = 'φ values are for plasma-like concentrations; PN is far more concentrated, so this is an approximation.';
 
 // Glucose anhydrous 180.16 g/mol, monohydrate 198.17 g/mol (IUPAC atomic weights).
 const ANHYDROUS_PER_MONOHYDRATE = new D('180.16').div('198.17');
 
-// Each stock's coefficient, found once per product (products are immutable).
-const coefficients = new WeakMap<Product, Coefficient | null>();
+/**
+ * What one stock adds to the osmotic-coefficient sum, worked out once per product (products are immutable).
+ * Every flag holds for a line of the stock that is in the bag (volume above zero).
+ */
+interface StockTerms {
+  /** False when the stock adds no particles (none per mL): its lines add nothing. */
+  counts: boolean;
+  /** The nutrient's own mOsm per mL, when above zero; null without a nutrient or when it adds none. */
+  nutrientPerMl: D | null;
+  /**
+   * The nutrient is all the stock's particles (its mOsm/mL is the stock's particles per mL, digit for
+   * digit): a line's nutrient mOsm (that figure × the volume) is then its particle mOsm (the stock's
+   * particles per mL × the volume, as computeBag makes it), the same decimal, and its ions add zero.
+   */
+  nutrientOnly: boolean;
+  /** φ of the nutrient: glucose's for dextrose, null (ideal) for any other nutrient. */
+  nutrientPhi: D | null;
+  /** φ of the stock's dissolved ions (the table's salt), null when the table has none. */
+  ion: Coefficient | null;
+  /** The nutrient adds particles and has no φ (not glucose): the stock is named as counted ideal. */
+  idealNutrient: boolean;
+}
+
+const terms = new WeakMap<Product, StockTerms>();
 
 /** The φ for a stock's dissolved ions: the table's salt whose species match exactly, else null. */
 function ionCoefficient(product: Product): Coefficient | null {
-  let found = coefficients.get(product);
-  if (found === undefined) {
-    const present = [...stockFigures(product).holds].sort();
-    found = COEFFICIENTS.find((c) => c.species.length === present.length && [...c.species].sort().every((s, i) => s === present[i])) ?? null;
-    coefficients.set(product, found);
+  const present = [...stockFigures(product).holds].sort();
+  return COEFFICIENTS.find((c) => c.species.length === present.length && [...c.species].sort().every((s, i) => s === present[i])) ?? null;
+}
+
+/** A stock's terms, computed on first use and kept for the product's lifetime. */
+function stockTerms(product: Product): StockTerms {
+  let t = terms.get(product);
+  if (t === undefined) {
+    const perMl = stockFigures(product).nutrientMOsmPerMl;
+    const nutrientPerMl = product.nutrient && perMl.gt(ZERO) ? perMl : null;
+    const dextrose = product.role === 'dextrose';
+    const p = product.particlePerMl;
+    t = {
+      counts: p.gt(ZERO),
+      nutrientPerMl,
+      nutrientOnly: nutrientPerMl !== null && nutrientPerMl.x === null && p.x === null && nutrientPerMl.c === p.c && nutrientPerMl.e === p.e,
+      nutrientPhi: dextrose ? GLUCOSE_PHI : null,
+      ion: ionCoefficient(product),
+      idealNutrient: nutrientPerMl !== null && !dextrose,
+    };
+    terms.set(product, t);
   }
-  return found;
+  return t;
 }
 
 /**
@@ -64,21 +103,27 @@ function ionCoefficient(product: Product): Coefficient | null {
  * Example: 1000 mL holding 154 mmol NaCl (308 ideal mOsm) → 308 × 0.93 = 286.4.
  */
 export function osmoticCoefficientEstimate(bag: Bag): OsmolalityEstimate {
-  const uncounted: string[] = [];
+  let uncounted: string[] | null = null;
   let total = ZERO;
-  for (const l of bag.lines) {
-    if (!l.inBag || !l.particleMOsm.gt(ZERO)) continue;
-    const nutrientMOsm = l.product.nutrient ? l.stock.nutrientMOsmPerMl.times(l.volumeMl) : ZERO;
-    const ionMOsm = nutrientMOsm.isZero() ? l.particleMOsm : l.particleMOsm.minus(nutrientMOsm);
-    const ion = ionCoefficient(l.product);
+  const lines = bag.lines;
+  for (let i = 0; i < lines.length; i++) {
+    const l = lines[i]!;
+    if (!l.inBag) continue;
+    const t = stockTerms(l.product);
+    // In the bag, a line's particles are above zero exactly when its stock's are.
+    if (!t.counts) continue;
+    let ionMOsm = l.particleMOsm;
+    if (t.nutrientPerMl !== null) {
+      const nutrientMOsm = t.nutrientOnly ? l.particleMOsm : t.nutrientPerMl.times(l.volumeMl);
+      total = total.plus(t.nutrientPhi ? nutrientMOsm.times(t.nutrientPhi) : nutrientMOsm);
+      ionMOsm = t.nutrientOnly ? ZERO : l.particleMOsm.minus(nutrientMOsm);
+    }
     // A zero term, or φ = 1, would change no digit of the total: both are left out.
-    if (!nutrientMOsm.isZero()) total = total.plus(l.product.role === 'dextrose' ? nutrientMOsm.times(GLUCOSE_PHI) : nutrientMOsm);
-    if (!ionMOsm.isZero()) total = total.plus(ion ? ionMOsm.times(ion.phi) : ionMOsm);
-    const idealNutrient = nutrientMOsm.gt(ZERO) && l.product.role !== 'dextrose';
-    if (idealNutrient || (ionMOsm.gt(ZERO) && !ion)) uncounted.push(l.product.name);
+    if (!ionMOsm.isZero()) total = total.plus(t.ion ? ionMOsm.times(t.ion.phi) : ionMOsm);
+    if (t.idealNutrient || (!t.ion && ionMOsm.gt(ZERO))) (uncounted ??= []).push(l.product.name);
   }
-  const notes = ['φ values are for plasma-like concentrations; PN is far more concentrated, so this is an approximation.'];
-  if (uncounted.length > 0) notes.push(`No coefficient in the table, counted as ideal (φ = 1): ${uncounted.join('; ')}.`);
+  const notes = [COEFFICIENT_NOTE];
+  if (uncounted !== null) notes.push(`No coefficient in the table, counted as ideal (φ = 1): ${uncounted.join('; ')}.`);
   return {
     method: 'osmotic-coefficient',
     label: 'Osmotic-coefficient estimate',
@@ -99,12 +144,13 @@ export function osmoticCoefficientEstimate(bag: Bag): OsmolalityEstimate {
  */
 export function pereiraDaSilvaEstimate(bag: Bag): OsmolalityEstimate | null {
   const V = bag.finalVolumeMl;
-  const glucoseG = sum(bag.lines.filter((l) => l.product.role === 'dextrose' && l.product.nutrient).map((l) => {
+  let glucoseG = ZERO;
+  for (const l of bag.lines) {
     const n = l.product.nutrient;
-    if (!n) return ZERO;
+    if (l.product.role !== 'dextrose' || !n) continue;
     const g = n.gramsPerMl.times(l.volumeMl);
-    return n.basis === 'hydrous' ? g.times(ANHYDROUS_PER_MONOHYDRATE) : g;
-  }));
+    glucoseG = glucoseG.plus(n.basis === 'hydrous' ? g.times(ANHYDROUS_PER_MONOHYDRATE) : g);
+  }
   const phosphorusMgPerL = perLitre(bag.speciesMmol.phosphate.plus(bag.speciesMmol.glycerophosphate), V).times(SPECIES.phosphate.molarMass);
   const value = perLitre(bag.grams.aminoAcids, V).times(8)
     .plus(perLitre(glucoseG, V).times(7))
@@ -158,9 +204,19 @@ export const predictedOsmolalityReportSchema = z.object({
   note: z.string(),
 });
 
-/** The report field for a bag, rounded at this edge to 0.1 mOsm/kg; `{}` when nothing is predicted. */
-export function predictedOsmolalityField(bag: Bag): { predictedOsmolality?: z.infer<typeof predictedOsmolalityReportSchema> } {
+/** `information.predictedOsmolality` of a bag's report, rounded at this edge to 0.1 mOsm/kg; null when nothing is predicted. */
+export function predictedOsmolalityReport(bag: Bag): z.infer<typeof predictedOsmolalityReportSchema> | null {
   const p = predictOsmolality(bag);
-  if (!p) return {};
-  return { predictedOsmolality: { estimates: p.estimates.map((e) => ({ ...e, value: round(e.value, 1) })), note: p.note } };
+  if (!p) return null;
+  const estimates: z.infer<typeof predictedOsmolalityReportSchema>['estimates'] = [];
+  for (const e of p.estimates) {
+    estimates.push({ method: e.method, label: e.label, value: round(e.value, 1), unit: e.unit, source: e.source, status: e.status, notes: e.notes });
+  }
+  return { estimates, note: p.note };
+}
+
+/** The report field for a bag (see predictedOsmolalityReport); `{}` when nothing is predicted. */
+export function predictedOsmolalityField(bag: Bag): { predictedOsmolality?: z.infer<typeof predictedOsmolalityReportSchema> } {
+  const p = predictedOsmolalityReport(bag);
+  return p ? { predictedOsmolality: p } : {};
 }

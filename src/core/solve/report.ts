@@ -86,11 +86,16 @@ function changeReport(c: Change): z.infer<typeof changeSchema> {
   }
 }
 
+/**
+ * A finding named in a proposal, its optional keys last (where the report has always written them). Each mix
+ * of optional keys is one literal: a key added to a finished literal would go to a separate property store.
+ */
 function findingSummary(f: Finding): z.infer<typeof findingSummarySchema> {
-  const out: z.infer<typeof findingSummarySchema> = { code: f.code, severity: f.severity, message: f.message };
-  if (f.nutrient !== undefined) out.nutrient = f.nutrient;
-  if (f.screen !== undefined) out.screen = f.screen;
-  return out;
+  const { nutrient, screen } = f;
+  if (nutrient === undefined && screen === undefined) return { code: f.code, severity: f.severity, message: f.message };
+  if (screen === undefined) return { code: f.code, severity: f.severity, message: f.message, nutrient };
+  if (nutrient === undefined) return { code: f.code, severity: f.severity, message: f.message, screen };
+  return { code: f.code, severity: f.severity, message: f.message, nutrient, screen };
 }
 
 /** A suggestion rounded for the report, once, at this edge. */
