@@ -3,7 +3,7 @@ import { fmt } from '../format.ts';
 import { ruleFor } from '../policy.ts';
 import type { Bag, BagLine } from '../compute/bag.ts';
 import { fromRule, type Check } from '../findings.ts';
-import { settled, DEFER } from './limits.ts';
+import { settled, DEFER, numberText } from './limits.ts';
 
 /** How many contributors a message names. */
 const TOP = 3;
@@ -71,8 +71,8 @@ export const aluminum: Check = (bag, policy) => {
   return [fromRule('aluminum', rule, {
     value, limit: rule.max, decimals: 2,
     message: atOrOver
-      ? `Aluminum ${fmt(value, 2)} µg/kg/day is at or above the limit of ${rule.max.toString()} µg/kg/day: it accumulates, above all with immature or impaired kidneys.${topText}${missingText} Consider lower-aluminum stocks. ${DEFER}`
-      : `Aluminum ${fmt(value, 2)} µg/kg/day is below the limit of ${rule.max.toString()} µg/kg/day.${topText}${missingText}`,
+      ? `Aluminum ${fmt(value, 2)} µg/kg/day is at or above the limit of ${numberText(rule.max)} µg/kg/day: it accumulates, above all with immature or impaired kidneys.${topText}${missingText} Consider lower-aluminum stocks. ${DEFER}`
+      : `Aluminum ${fmt(value, 2)} µg/kg/day is below the limit of ${numberText(rule.max)} µg/kg/day.${topText}${missingText}`,
     lines,
     within: !atOrOver,
   })];

@@ -4,9 +4,9 @@ import { ruleFor, type Policy } from '../policy.ts';
 import { perLitreOf, type Bag } from '../compute/bag.ts';
 import { as, mmolToMEq } from '../units.ts';
 import type { Product } from '../catalog.ts';
-import { fromRule, type Check, type Finding } from '../findings.ts';
-import { outside, settled, DEFER } from './limits.ts';
-import { GROUP, groupsOf } from './lineGroups.ts';
+import { fromRule, NO_LINES, type Check, type Finding } from '../findings.ts';
+import { outside, settled, DEFER, numberText } from './limits.ts';
+import { anyIn, GROUP, inBagGroups, linesIn, type InBagGroups } from './lineGroups.ts';
 import { curveFor, readCurve } from './solubilityCurve.ts';
 
 /** Calcium and phosphate of a bag as the screens read them, per litre of the final volume. */
@@ -32,38 +32,19 @@ export function calciumPhosphateLevels(bag: Bag): CalciumPhosphateLevels {
 
 const SCREENS_ONLY = 'These are screens only: the solubility curve of the amino-acid product in this bag, at its amino-acid %, temperature and hang time, decides.';
 
-/** The lines the screens name, and the bag's amino-acid product, found in one pass over the lines in the bag. */
-interface ScreenLines {
-  calcium: number[];
-  /** Inorganic phosphate. */
-  phosphate: number[];
-  organic: number[];
-  /** Calcium with chloride (calcium chloride). */
-  calciumChloride: number[];
-  /** The bag's amino-acid product (the first, when it holds several); null without amino acids. */
-  aminoAcids: Product | null;
-  /** True when the bag holds more than one amino-acid product. */
-  mixedAminoAcids: boolean;
-}
+/** The bag's amino-acid product (the first, when it holds several), or null without amino acids; `mixed` when it holds more than one. */
+interface AminoAcids { product: Product | null; mixed: boolean }
 
-function screenLines(bag: Bag): ScreenLines {
-  const out: ScreenLines = { calcium: [], phosphate: [], organic: [], calciumChloride: [], aminoAcids: null, mixedAminoAcids: false };
-  for (const l of bag.lines) {
-    if (!l.inBag) continue;
-    const groups = groupsOf(l.product);
-    const index = l.line.index;
-    if (groups & GROUP.Ca) {
-      out.calcium.push(index);
-      if (groups & GROUP.Cl) out.calciumChloride.push(index);
-    }
-    if (groups & GROUP.phosphate) out.phosphate.push(index);
-    if (groups & GROUP.glycerophosphate) out.organic.push(index);
-    if (groups & GROUP.aminoAcids) {
-      if (!out.aminoAcids || out.aminoAcids.id === l.product.id) out.aminoAcids = l.product;
-      else out.mixedAminoAcids = true;
-    }
+function aminoAcidsOf(lines: InBagGroups): AminoAcids {
+  let product: Product | null = null;
+  let mixed = false;
+  for (let i = 0; i < lines.count; i++) {
+    if ((lines.groups[i]! & GROUP.aminoAcids) === 0) continue;
+    const p = lines.product[i]!;
+    if (!product || product.id === p.id) product = p;
+    else mixed = true;
   }
-  return out;
+  return { product, mixed };
 }
 
 /**
@@ -82,11 +63,10 @@ export const calciumPhosphate: Check = (bag, policy) => {
   if (!lv.calciumMmolPerL.gt(0) || !(pInorganic.gt(0) || pOrganic.gt(0))) return [];
   const age = bag.order.patient.ageGroup;
   const route = bag.order.route;
-  const lines = screenLines(bag);
-  const caLines = lines.calcium;
-  const pLines = lines.phosphate;
-  const organicLines = lines.organic;
-  const curve = curveScreen(bag, policy, lv, lines);
+  const lines = inBagGroups(bag);
+  // The calcium lines, then the inorganic phosphate ones: the lines the product, sum and curve screens name.
+  const caAndP = pInorganic.gt(0) ? linesIn(lines, GROUP.Ca, GROUP.phosphate) : NO_LINES;
+  const curve = curveScreen(bag, policy, lv, lines, caAndP);
   const curveNote = curve.note ? ` ${curve.note}` : '';
   const hasOrganic = pOrganic.gt(0);
   const organicText = hasOrganic ? fmt(pOrganic, 2) : '';
@@ -102,8 +82,8 @@ export const calciumPhosphate: Check = (bag, policy) => {
       const over = outside(product, productRule) === 'max';
       out.push(fromRule('calcium-phosphate', productRule, {
         value: product, limit: productRule.max, decimals: 1, screen: 'product',
-        message: `Ca × P = ${calciumText} mmol/L calcium × ${inorganicText} mmol/L inorganic phosphate = ${fmt(product, 1)} mmol²/L², ${over ? 'over' : 'within'} the ${route} product screen of ${productRule.max.toString()}.${organicNote} ${SCREENS_ONLY}${curveNote} ${DEFER}`,
-        lines: [...caLines, ...pLines],
+        message: `Ca × P = ${calciumText} mmol/L calcium × ${inorganicText} mmol/L inorganic phosphate = ${fmt(product, 1)} mmol²/L², ${over ? 'over' : 'within'} the ${route} product screen of ${numberText(productRule.max)}.${organicNote} ${SCREENS_ONLY}${curveNote} ${DEFER}`,
+        lines: caAndP,
         within: !over,
       }));
     }
@@ -113,17 +93,17 @@ export const calciumPhosphate: Check = (bag, policy) => {
       const over = outside(total, sumRule) === 'max';
       out.push(fromRule('calcium-phosphate', sumRule, {
         value: total, limit: sumRule.max, decimals: 1, screen: 'sum',
-        message: `Ca + P = ${fmt(lv.calciumMEqPerL, 2)} mEq/L calcium + ${inorganicText} mmol/L inorganic phosphate = ${fmt(total, 1)}, ${over ? 'over' : 'within'} the sum screen of ${sumRule.max.toString()}. ${SCREENS_ONLY} ${DEFER}`,
-        lines: [...caLines, ...pLines],
+        message: `Ca + P = ${fmt(lv.calciumMEqPerL, 2)} mEq/L calcium + ${inorganicText} mmol/L inorganic phosphate = ${fmt(total, 1)}, ${over ? 'over' : 'within'} the sum screen of ${numberText(sumRule.max)}. ${SCREENS_ONLY} ${DEFER}`,
+        lines: caAndP,
         within: !over,
       }));
     }
     const chlorideRule = ruleFor(policy, 'calcium-chloride-phosphate', age);
-    if (chlorideRule && lines.calciumChloride.length > 0) {
+    if (chlorideRule && anyIn(lines, GROUP.calciumChloride)) {
       out.push(fromRule('calcium-phosphate', chlorideRule, {
         value: null, limit: null, decimals: 0, screen: 'calcium-chloride',
         message: `Calcium chloride with inorganic phosphate: calcium chloride dissociates more than calcium gluconate, so less phosphate stays in solution, whatever the screens above say. Use calcium gluconate, or confirm this combination against a solubility curve made with calcium chloride. ${DEFER}`,
-        lines: [...lines.calciumChloride, ...pLines],
+        lines: linesIn(lines, GROUP.calciumChloride, GROUP.phosphate),
       }));
     }
   }
@@ -133,11 +113,11 @@ export const calciumPhosphate: Check = (bag, policy) => {
     if (organicRule) {
       const over = outside(pOrganic, organicRule) === 'max';
       const inorganicText = pInorganic.gt(0) ? '' : ' With no inorganic phosphate, the inorganic screens are not triggered.';
-      const limitText = organicRule.max ? ` Tested up to ${organicRule.max.toString()} mmol/L${over ? ': this bag is beyond what was tested' : ''} (calcium here ${calciumText} mmol/L).` : '';
+      const limitText = organicRule.max ? ` Tested up to ${numberText(organicRule.max)} mmol/L${over ? ': this bag is beyond what was tested' : ''} (calcium here ${calciumText} mmol/L).` : '';
       out.push(fromRule('calcium-phosphate', organicRule, {
         value: pOrganic, limit: organicRule.max, decimals: 2, screen: 'organic-phosphate',
         message: `Organic phosphate (glycerophosphate) ${organicText} mmol/L is reported separately: organic phosphate salts stay in solution with calcium far above inorganic ones.${limitText}${inorganicText} ${DEFER}`,
-        lines: [...organicLines, ...caLines],
+        lines: linesIn(lines, GROUP.glycerophosphate, GROUP.Ca),
         within: !over,
       }));
     }
@@ -150,20 +130,20 @@ export const calciumPhosphate: Check = (bag, policy) => {
     out.push(fromRule('calcium-phosphate', lipidRule, {
       value: null, limit: null, decimals: 0, screen: 'hidden-by-lipid',
       message: 'This is a 3-in-1: a calcium phosphate precipitate cannot be seen in the emulsion, so visual inspection cannot rule it out. Rely on the curve and the screens, and use the in-line filter the policy requires.',
-      lines: [...caLines, ...pLines, ...organicLines],
+      lines: linesIn(lines, GROUP.Ca, GROUP.phosphate, GROUP.glycerophosphate),
     }));
   }
   return out;
 };
 
 /** The solubility-curve screen: a finding when a curve applies, else a note for the screens' messages. */
-function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, screen: ScreenLines): { finding: Finding | null; note: string | null } {
+function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, inBag: InBagGroups, caAndP: number[]): { finding: Finding | null; note: string | null } {
   const rule = ruleFor(policy, 'calcium-phosphate-curve', bag.order.patient.ageGroup);
   if (!rule || !lv.inorganicPhosphateMmolPerL.gt(0)) return { finding: null, note: null };
-  const only = screen.aminoAcids;
+  const aminoAcids = aminoAcidsOf(inBag);
+  const only = aminoAcids.product;
   if (!only) return { finding: null, note: 'The bag has no amino acids: published curves do not cover it.' };
-  if (screen.mixedAminoAcids) return { finding: null, note: 'The bag mixes amino-acid products: no single product curve applies.' };
-  const lines = [...screen.calcium, ...screen.phosphate];
+  if (aminoAcids.mixed) return { finding: null, note: 'The bag mixes amino-acid products: no single product curve applies.' };
   const aaPercent = bag.percent.aminoAcids;
   const curve = curveFor(policy.solubilityCurves, only.id, aaPercent);
   if (!curve) {
@@ -178,15 +158,15 @@ function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, scree
   const p = lv.inorganicPhosphateMmolPerL;
   const ca = lv.calciumMEqPerL;
   const reading = readCurve(curve, ca);
-  const conditions = [curve.temperatureC ? `${curve.temperatureC.toString()} °C` : '', curve.hours ? `${curve.hours.toString()} h` : ''].filter((x) => x !== '').join(', ');
-  const curveName = `the ${curve.id} curve (${only.name} at ${curve.aminoAcidPercent.toString()}% amino acids${conditions ? `, ${conditions}` : ''}; ${curve.source})`;
+  const conditions = [curve.temperatureC ? `${numberText(curve.temperatureC)} °C` : '', curve.hours ? `${numberText(curve.hours)} h` : ''].filter((x) => x !== '').join(', ');
+  const curveName = `the ${curve.id} curve (${only.name} at ${numberText(curve.aminoAcidPercent)}% amino acids${conditions ? `, ${conditions}` : ''}; ${curve.source})`;
   const source = `${rule.source}; curve: ${curve.source}`;
   if (reading.where === 'beyond-last-point') {
     return {
       finding: fromRule('calcium-phosphate', rule, {
         value: ca, limit: reading.lastCalciumMEqPerL, decimals: 2, screen: 'solubility-curve',
         message: `Calcium ${fmt(ca, 2)} mEq/L is beyond the last point of ${curveName}: the curve does not show any phosphate compatible at this calcium. ${DEFER}`,
-        lines, unit: 'mEq/L', source,
+        lines: caAndP, unit: 'mEq/L', source,
       }),
       note: null,
     };
@@ -198,7 +178,7 @@ function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, scree
   const finding = fromRule('calcium-phosphate', rule, {
     value: p, limit, decimals: 2, screen: 'solubility-curve',
     message: `Inorganic phosphate ${fmt(p, 2)} mmol/L against ${curveName}: at ${fmt(ca, 2)} mEq/L calcium the curve allows ${fmt(limit, 2)} mmol/L${below}; ${over ? `over it by ${fmt(margin.neg(), 2)}` : `margin ${fmt(margin, 2)}`} mmol/L. ${DEFER}`,
-    lines, unit: 'mmol/L', source, within: !over,
+    lines: caAndP, unit: 'mmol/L', source, within: !over,
   });
   return { finding, note: null };
 }

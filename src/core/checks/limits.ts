@@ -26,6 +26,19 @@ export function outside(value: D, rule: Pick<Rule, 'min' | 'max'>): 'min' | 'max
   return null;
 }
 
+// Each policy number's text, written once: a policy's decimals are immutable values, read for every bag.
+const numberTexts = new WeakMap<D, string>();
+
+/** A number of the policy (a bound, a curve's temperature) as text, as the policy writes it: "0.125", "4". */
+export function numberText(x: D): string {
+  let text = numberTexts.get(x);
+  if (text === undefined) {
+    text = x.toString();
+    numberTexts.set(x, text);
+  }
+  return text;
+}
+
 function rangeTextOf(rule: Pick<Rule, 'min' | 'max' | 'unit'>): string {
   if (rule.min && rule.max) return `${rule.min.toString()}–${rule.max.toString()} ${rule.unit}`;
   if (rule.max) return `≤ ${rule.max.toString()} ${rule.unit}`;

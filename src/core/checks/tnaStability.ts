@@ -3,8 +3,8 @@ import { fmt } from '../format.ts';
 import { ruleFor, type Rule } from '../policy.ts';
 import { perLitre, type Bag } from '../compute/bag.ts';
 import { fromRule, type Check, type Finding } from '../findings.ts';
-import { outside, rangeText, reportedLimit, DEFER } from './limits.ts';
-import { GROUP, groupsOf } from './lineGroups.ts';
+import { outside, rangeText, reportedLimit, DEFER, numberText } from './limits.ts';
+import { GROUP, inBagGroups, linesIn } from './lineGroups.ts';
 
 // Dextrose monohydrate C6H12O6·H2O 198.17 g/mol and anhydrous glucose 180.16 g/mol (IUPAC atomic weights):
 // the ASPEN minimum is written for the monohydrate, so anhydrous grams count × 198.17/180.16.
@@ -45,28 +45,10 @@ function minimumFinding(rule: Rule | null, value: D, what: string, nutrient: str
   return fromRule('tna-stability', rule, {
     value, limit: reportedLimit(rule, crossed), decimals: 2, screen: `${nutrient}-minimum`, nutrient,
     message: crossed === 'min'
-      ? `3-in-1 final ${what} ${fmt(value, 2)}% is below the stability minimum of ${rule.min.toString()}%: the emulsion is less likely to stay stable for the usual hang and storage time. Consider a 2-in-1 with the lipid given separately, or shorten the storage time. ${DEFER}`
+      ? `3-in-1 final ${what} ${fmt(value, 2)}% is below the stability minimum of ${numberText(rule.min)}%: the emulsion is less likely to stay stable for the usual hang and storage time. Consider a 2-in-1 with the lipid given separately, or shorten the storage time. ${DEFER}`
       : `3-in-1 final ${what} ${fmt(value, 2)}% meets the stability minimum (${rangeText(rule)}).`,
     lines, within: crossed === null,
   });
-}
-
-/** The lines each screen names, found in one pass over the lines in the bag. */
-interface ScreenLines { aminoAcids: number[]; dextrose: number[]; lipid: number[]; divalent: number[]; cations: number[] }
-
-function screenLines(bag: Bag): ScreenLines {
-  const out: ScreenLines = { aminoAcids: [], dextrose: [], lipid: [], divalent: [], cations: [] };
-  for (const l of bag.lines) {
-    if (!l.inBag) continue;
-    const groups = groupsOf(l.product);
-    const index = l.line.index;
-    if (groups & GROUP.aminoAcids) out.aminoAcids.push(index);
-    if (groups & GROUP.dextrose) out.dextrose.push(index);
-    if (groups & GROUP.lipid) out.lipid.push(index);
-    if (groups & (GROUP.Ca | GROUP.Mg)) out.divalent.push(index);
-    if (groups & CATIONS) out.cations.push(index);
-  }
-  return out;
 }
 
 /**
@@ -78,12 +60,12 @@ function screenLines(bag: Bag): ScreenLines {
 export const tnaStability: Check = (bag, policy) => {
   if (!bag.grams.lipid.gt(0) || bag.finalVolumeMl.isZero()) return [];
   const age = bag.order.patient.ageGroup;
-  const lines = screenLines(bag);
+  const lines = inBagGroups(bag);
   const out: Finding[] = [];
   const minimums = [
-    minimumFinding(ruleFor(policy, 'tna-amino-acids-min', age), bag.percent.aminoAcids, 'amino acids', 'amino-acids', lines.aminoAcids),
-    minimumFinding(ruleFor(policy, 'tna-dextrose-min', age), dextroseMonohydratePercent(bag), 'dextrose (as monohydrate)', 'dextrose', lines.dextrose),
-    minimumFinding(ruleFor(policy, 'tna-lipid-min', age), bag.percent.lipid, 'lipid', 'lipid', lines.lipid),
+    minimumFinding(ruleFor(policy, 'tna-amino-acids-min', age), bag.percent.aminoAcids, 'amino acids', 'amino-acids', linesIn(lines, GROUP.aminoAcids)),
+    minimumFinding(ruleFor(policy, 'tna-dextrose-min', age), dextroseMonohydratePercent(bag), 'dextrose (as monohydrate)', 'dextrose', linesIn(lines, GROUP.dextrose)),
+    minimumFinding(ruleFor(policy, 'tna-lipid-min', age), bag.percent.lipid, 'lipid', 'lipid', linesIn(lines, GROUP.lipid)),
   ];
   for (const f of minimums) if (f) out.push(f);
   const loads = cationLoads(bag);
@@ -94,9 +76,9 @@ export const tnaStability: Check = (bag, policy) => {
     out.push(fromRule('tna-stability', divalentRule, {
       value: loads.divalent, limit: divalentRule.max, decimals: 2, screen: 'divalent-cations',
       message: crossed
-        ? `Divalent cations (calcium + magnesium) ${divalentText} mmol/L are over the 3-in-1 limit of ${divalentRule.max.toString()} mmol/L: divalent cations destabilise the emulsion. ${DEFER}`
+        ? `Divalent cations (calcium + magnesium) ${divalentText} mmol/L are over the 3-in-1 limit of ${numberText(divalentRule.max)} mmol/L: divalent cations destabilise the emulsion. ${DEFER}`
         : `Divalent cations (calcium + magnesium) ${divalentText} mmol/L are within the 3-in-1 limit (${rangeText(divalentRule)}).`,
-      lines: lines.divalent,
+      lines: linesIn(lines, GROUP.Ca | GROUP.Mg),
       within: crossed === null,
     }));
   }
@@ -105,11 +87,11 @@ export const tnaStability: Check = (bag, policy) => {
     const can = criticalAggregationNumber(loads);
     const crossed = canRule.max ? outside(can, canRule) : null;
     const formula = `CAN = a + 64b + 729c = ${fmt(loads.monovalent, 2)} + 64 × ${divalentText} + 729 × ${fmt(loads.trivalent, 2)} = ${fmt(can, 1)} mmol/L (a: Na + K, b: Ca + Mg, c: trivalent cations, each mmol/L)`;
-    const threshold = canRule.max ? `; the policy's threshold is ${canRule.max.toString()}` : '; no threshold is set, as no reliable published one exists';
+    const threshold = canRule.max ? `; the policy's threshold is ${numberText(canRule.max)}` : '; no threshold is set, as no reliable published one exists';
     out.push(fromRule('tna-stability', canRule, {
       value: can, limit: canRule.max, decimals: 1, screen: 'critical-aggregation-number',
       message: `Critical aggregation number (information): ${formula}${threshold}.${crossed ? ` It is over the threshold. ${DEFER}` : ''}`,
-      lines: lines.cations,
+      lines: linesIn(lines, CATIONS),
       within: crossed === null,
     }));
   }
