@@ -53,9 +53,13 @@ export function groupsOf(product: Product): number {
   return groups;
 }
 
+/** How many GROUP bits there are. */
+const GROUP_BITS = Object.keys(GROUP).length;
+
 /**
  * The lines of one bag that are in the bag, with their groups: `index[i]` is the order line's index,
- * `groups[i]` its GROUP bits and `product[i]` its product, for i below `count`. See inBagGroups.
+ * `groups[i]` its GROUP bits and `product[i]` its product, for i below `count`; `byGroup[b]` holds the
+ * indexes of the lines in the group of bit b (its first `inGroup[b]` entries), in line order. See inBagGroups.
  */
 export interface InBagGroups {
   count: number;
@@ -63,12 +67,18 @@ export interface InBagGroups {
   readonly groups: number[];
   /** The line's product. */
   readonly product: Product[];
+  readonly byGroup: readonly number[][];
+  readonly inGroup: number[];
 }
 
 // One set of lists, for the last bag asked about: the checks that name lines by group (dose ranges,
 // calcium–phosphate, 3-in-1 stability) run one after another on the same bag, so the lines are looked up
 // once per bag, and no lists are made per bag. `of` is the bag's lines array the lists were filled from.
-const scratch: InBagGroups & { of: readonly BagLine[] | null } = { count: 0, index: [], groups: [], product: [], of: null };
+const scratch: InBagGroups & { of: readonly BagLine[] | null } = {
+  count: 0, index: [], groups: [], product: [],
+  byGroup: Array.from({ length: GROUP_BITS }, (): number[] => []), inGroup: new Array<number>(GROUP_BITS).fill(0),
+  of: null,
+};
 
 /**
  * The lines of a bag that are in the bag, with their groups, in line order. The lists are shared and
@@ -78,13 +88,20 @@ export function inBagGroups(bag: Bag): InBagGroups {
   // A bag's lines are never changed once it is computed (a changed order makes a new bag).
   if (scratch.of === bag.lines) return scratch;
   let n = 0;
-  const { index, groups, product } = scratch;
+  const { index, groups, product, byGroup, inGroup } = scratch;
+  inGroup.fill(0);
   for (const l of bag.lines) {
     if (!l.inBag) continue;
+    const g = groupsOf(l.product);
     index[n] = l.line.index;
-    groups[n] = groupsOf(l.product);
+    groups[n] = g;
     product[n] = l.product;
     n++;
+    // Each group bit of the line, lowest first.
+    for (let rest = g; rest !== 0; rest &= rest - 1) {
+      const b = 31 - Math.clz32(rest & -rest);
+      byGroup[b]![inGroup[b]!++] = l.line.index;
+    }
   }
   scratch.count = n;
   scratch.of = bag.lines;
@@ -97,14 +114,27 @@ export function anyIn(lines: InBagGroups, mask: number): boolean {
   return false;
 }
 
+// A mask of one group reads that group's list; a mask of several goes over the lines (a line in two of
+// them is named once).
+
 function countIn(lines: InBagGroups, mask: number): number {
+  if (mask === 0) return 0;
+  if ((mask & (mask - 1)) === 0) return lines.inGroup[31 - Math.clz32(mask)]!;
   let found = 0;
-  if (mask !== 0) for (let i = 0; i < lines.count; i++) if ((lines.groups[i]! & mask) !== 0) found++;
+  for (let i = 0; i < lines.count; i++) if ((lines.groups[i]! & mask) !== 0) found++;
   return found;
 }
 
 function putIn(lines: InBagGroups, mask: number, out: number[], at: number): number {
-  if (mask !== 0) for (let i = 0; i < lines.count; i++) if ((lines.groups[i]! & mask) !== 0) out[at++] = lines.index[i]!;
+  if (mask === 0) return at;
+  if ((mask & (mask - 1)) === 0) {
+    const b = 31 - Math.clz32(mask);
+    const list = lines.byGroup[b]!;
+    const n = lines.inGroup[b]!;
+    for (let i = 0; i < n; i++) out[at++] = list[i]!;
+    return at;
+  }
+  for (let i = 0; i < lines.count; i++) if ((lines.groups[i]! & mask) !== 0) out[at++] = lines.index[i]!;
   return at;
 }
 
