@@ -1,11 +1,12 @@
-import type { D } from '../decimal.ts';
+import { ZERO, type D } from '../decimal.ts';
 import { fmt } from '../format.ts';
-import { ruleFor, type Policy } from '../policy.ts';
+import { ruleFor, type Policy, type Rule } from '../policy.ts';
+import type { Route } from '../order.ts';
 import { perLitreOf, type Bag } from '../compute/bag.ts';
 import { as, mmolToMEq } from '../units.ts';
 import type { Product } from '../catalog.ts';
 import { fromRule, NO_LINES, type Check, type Finding } from '../findings.ts';
-import { outside, settled, DEFER, numberText } from './limits.ts';
+import { kept, outside, settled, DEFER, numberText, type ScreenWords } from './limits.ts';
 import { anyIn, GROUP, inBagGroups, linesIn, type InBagGroups } from './lineGroups.ts';
 import { curveFor, readCurve } from './solubilityCurve.ts';
 
@@ -31,6 +32,26 @@ export function calciumPhosphateLevels(bag: Bag): CalciumPhosphateLevels {
 }
 
 const SCREENS_ONLY = 'These are screens only: the solubility curve of the amino-acid product in this bag, at its amino-acid %, temperature and hang time, decides.';
+
+// Each rule's words after the figures, made once: the product rule is the route's own
+// (calcium-phosphate-product-central or -peripheral), so its words name the route it is read for.
+const productWords = new WeakMap<Rule, ScreenWords>();
+const sumWords = new WeakMap<Rule, ScreenWords>();
+
+function productWordsOf(rule: Rule, route: Route): ScreenWords {
+  const bound = numberText(rule.max ?? ZERO);
+  return { over: ` mmol²/L², over the ${route} product screen of ${bound}.`, within: ` mmol²/L², within the ${route} product screen of ${bound}.` };
+}
+const centralProductWords = (rule: Rule): ScreenWords => productWordsOf(rule, 'central');
+const peripheralProductWords = (rule: Rule): ScreenWords => productWordsOf(rule, 'peripheral');
+
+function sumWordsOf(rule: Rule): ScreenWords {
+  const bound = numberText(rule.max ?? ZERO);
+  return { over: `, over the sum screen of ${bound}. ${SCREENS_ONLY} ${DEFER}`, within: `, within the sum screen of ${bound}. ${SCREENS_ONLY} ${DEFER}` };
+}
+
+const SCREENS_ONLY_DEFER = ` ${SCREENS_ONLY} ${DEFER}`;
+const CHLORIDE_MESSAGE = `Calcium chloride with inorganic phosphate: calcium chloride dissociates more than calcium gluconate, so less phosphate stays in solution, whatever the screens above say. Use calcium gluconate, or confirm this combination against a solubility curve made with calcium chloride. ${DEFER}`;
 
 /** The bag's amino-acid product (the first, when it holds several), or null without amino acids; `mixed` when it holds more than one. */
 interface AminoAcids { product: Product | null; mixed: boolean }
@@ -80,9 +101,10 @@ export const calciumPhosphate: Check = (bag, policy) => {
     if (productRule?.max) {
       const product = lv.calciumMmolPerL.times(pInorganic);
       const over = outside(product, productRule) === 'max';
+      const words = kept(productWords, productRule, route === 'central' ? centralProductWords : peripheralProductWords);
       out.push(fromRule('calcium-phosphate', productRule, {
         value: product, limit: productRule.max, decimals: 1, screen: 'product',
-        message: `Ca × P = ${calciumText} mmol/L calcium × ${inorganicText} mmol/L inorganic phosphate = ${fmt(product, 1)} mmol²/L², ${over ? 'over' : 'within'} the ${route} product screen of ${numberText(productRule.max)}.${organicNote} ${SCREENS_ONLY}${curveNote} ${DEFER}`,
+        message: `Ca × P = ${calciumText} mmol/L calcium × ${inorganicText} mmol/L inorganic phosphate = ${fmt(product, 1)}${over ? words.over : words.within}${organicNote}${curveNote === '' ? SCREENS_ONLY_DEFER : ` ${SCREENS_ONLY}${curveNote} ${DEFER}`}`,
         lines: caAndP,
         within: !over,
       }));
@@ -91,9 +113,10 @@ export const calciumPhosphate: Check = (bag, policy) => {
     if (sumRule?.max) {
       const total = lv.calciumMEqPerL.plus(pInorganic);
       const over = outside(total, sumRule) === 'max';
+      const words = kept(sumWords, sumRule, sumWordsOf);
       out.push(fromRule('calcium-phosphate', sumRule, {
         value: total, limit: sumRule.max, decimals: 1, screen: 'sum',
-        message: `Ca + P = ${fmt(lv.calciumMEqPerL, 2)} mEq/L calcium + ${inorganicText} mmol/L inorganic phosphate = ${fmt(total, 1)}, ${over ? 'over' : 'within'} the sum screen of ${numberText(sumRule.max)}. ${SCREENS_ONLY} ${DEFER}`,
+        message: `Ca + P = ${fmt(lv.calciumMEqPerL, 2)} mEq/L calcium + ${inorganicText} mmol/L inorganic phosphate = ${fmt(total, 1)}${over ? words.over : words.within}`,
         lines: caAndP,
         within: !over,
       }));
@@ -102,7 +125,7 @@ export const calciumPhosphate: Check = (bag, policy) => {
     if (chlorideRule && anyIn(lines, GROUP.calciumChloride)) {
       out.push(fromRule('calcium-phosphate', chlorideRule, {
         value: null, limit: null, decimals: 0, screen: 'calcium-chloride',
-        message: `Calcium chloride with inorganic phosphate: calcium chloride dissociates more than calcium gluconate, so less phosphate stays in solution, whatever the screens above say. Use calcium gluconate, or confirm this combination against a solubility curve made with calcium chloride. ${DEFER}`,
+        message: CHLORIDE_MESSAGE,
         lines: linesIn(lines, GROUP.calciumChloride, GROUP.phosphate),
       }));
     }

@@ -26,6 +26,22 @@ export function outside(value: D, rule: Pick<Rule, 'min' | 'max'>): 'min' | 'max
   return null;
 }
 
+/**
+ * The value kept in `map` for `key`, made by `make` on first use: for texts and figures that depend on an
+ * immutable policy value alone (a rule, a decimal), made once instead of for every bag.
+ */
+export function kept<K extends object, V>(map: WeakMap<K, V>, key: K, make: (key: K) => V): V {
+  let value = map.get(key);
+  if (value === undefined) {
+    value = make(key);
+    map.set(key, value);
+  }
+  return value;
+}
+
+/** The words of a screen's message after its figures: for a figure over the rule's bound, and within it. */
+export interface ScreenWords { over: string; within: string }
+
 // Each policy number's text, written once: a policy's decimals are immutable values, read for every bag.
 const numberTexts = new WeakMap<D, string>();
 
