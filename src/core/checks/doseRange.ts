@@ -4,7 +4,7 @@ import type { AgeGroup } from '../order.ts';
 import { doseRangeFor, DOSE_NUTRIENTS, type DoseNutrient, type Policy, type Rule } from '../policy.ts';
 import { perKgOf, type Bag } from '../compute/bag.ts';
 import { as, mmolToMEq } from '../units.ts';
-import { fromRule, NO_FIELDS, type Check, type Finding } from '../findings.ts';
+import { NO_FIELDS, type Check, type Finding } from '../findings.ts';
 import { outside, rangeText, reportedLimit, AGE_LABEL, DEFER } from './limits.ts';
 import { GROUP, inBagGroups, linesIn, type InBagGroups } from './lineGroups.ts';
 
@@ -167,13 +167,16 @@ function rangeFinding(bag: Bag, screen: DoseScreen, lines: InBagGroups): Finding
     crossed = outside(shown, rule);
     text = fmt(shown, decimals);
   }
-  return fromRule('dose-range', rule, {
+  // The finding as fromRule makes it, its fields in the same order, made here without a parts object:
+  // a dose range makes about ten findings for every bag.
+  return {
+    code: 'dose-range', severity: crossed === null ? 'info' : rule.severity, unit: rule.unit, source: rule.source,
     value, limit: reportedLimit(rule, crossed), decimals,
     message: screen.head + text + (crossed === 'max' ? screen.above : crossed === 'min' ? screen.below : screen.within),
-    nutrient, lines: linesIn(lines, screen.contributors),
+    lines: linesIn(lines, screen.contributors),
     fields: nutrient === 'fluid' ? FLUID_FIELDS : nutrient === 'lipidRate' ? RATE_FIELDS : NO_FIELDS,
-    within: crossed === null,
-  });
+    nutrient,
+  };
 }
 
 /**
