@@ -53,19 +53,34 @@ function sumWordsOf(rule: Rule): ScreenWords {
 const SCREENS_ONLY_DEFER = ` ${SCREENS_ONLY} ${DEFER}`;
 const CHLORIDE_MESSAGE = `Calcium chloride with inorganic phosphate: calcium chloride dissociates more than calcium gluconate, so less phosphate stays in solution, whatever the screens above say. Use calcium gluconate, or confirm this combination against a solubility curve made with calcium chloride. ${DEFER}`;
 
-/** The bag's amino-acid product (the first, when it holds several), or null without amino acids; `mixed` when it holds more than one. */
-interface AminoAcids { product: Product | null; mixed: boolean }
+/** What aminoAcidsOf gives for a bag holding more than one amino-acid product. */
+const MIXED = 'mixed';
 
-function aminoAcidsOf(lines: InBagGroups): AminoAcids {
+/** The bag's amino-acid product; MIXED when it holds more than one, null without amino acids. */
+function aminoAcidsOf(lines: InBagGroups): Product | typeof MIXED | null {
   let product: Product | null = null;
-  let mixed = false;
   for (let i = 0; i < lines.count; i++) {
     if ((lines.groups[i]! & GROUP.aminoAcids) === 0) continue;
     const p = lines.product[i]!;
     if (!product || product.id === p.id) product = p;
-    else mixed = true;
+    else return MIXED;
   }
-  return { product, mixed };
+  return product;
+}
+
+/** How the product screen's message ends when a note on the curve goes before the deference. */
+function withNote(note: string): string {
+  return ` ${SCREENS_ONLY} ${note} ${DEFER}`;
+}
+
+const NO_AMINO_ACIDS_END = withNote('The bag has no amino acids: published curves do not cover it.');
+const MIXED_END = withNote('The bag mixes amino-acid products: no single product curve applies.');
+
+// For each amino-acid product, the end of the message when the policy holds no curve for it (made once).
+const noCurveEnds = new WeakMap<Product, string>();
+
+function noCurveEndOf(product: Product): string {
+  return withNote(`No solubility curve for ${product.name} is on file in the policy: check the published curve.`);
 }
 
 /**
@@ -88,7 +103,6 @@ export const calciumPhosphate: Check = (bag, policy) => {
   // The calcium lines, then the inorganic phosphate ones: the lines the product, sum and curve screens name.
   const caAndP = pInorganic.gt(0) ? linesIn(lines, GROUP.Ca, GROUP.phosphate) : NO_LINES;
   const curve = curveScreen(bag, policy, lv, lines, caAndP);
-  const curveNote = curve.note ? ` ${curve.note}` : '';
   const hasOrganic = pOrganic.gt(0);
   const organicText = hasOrganic ? fmt(pOrganic, 2) : '';
   const calciumText = fmt(lv.calciumMmolPerL, 2);
@@ -104,7 +118,7 @@ export const calciumPhosphate: Check = (bag, policy) => {
       const words = kept(productWords, productRule, route === 'central' ? centralProductWords : peripheralProductWords);
       out.push(fromRule('calcium-phosphate', productRule, {
         value: product, limit: productRule.max, decimals: 1, screen: 'product',
-        message: `Ca × P = ${calciumText} mmol/L calcium × ${inorganicText} mmol/L inorganic phosphate = ${fmt(product, 1)}${over ? words.over : words.within}${organicNote}${curveNote === '' ? SCREENS_ONLY_DEFER : ` ${SCREENS_ONLY}${curveNote} ${DEFER}`}`,
+        message: `Ca × P = ${calciumText} mmol/L calcium × ${inorganicText} mmol/L inorganic phosphate = ${fmt(product, 1)}${over ? words.over : words.within}${organicNote}${typeof curve === 'string' ? curve : SCREENS_ONLY_DEFER}`,
         lines: caAndP,
         within: !over,
       }));
@@ -146,7 +160,7 @@ export const calciumPhosphate: Check = (bag, policy) => {
     }
   }
 
-  if (curve.finding) out.push(curve.finding);
+  if (curve !== null && typeof curve !== 'string') out.push(curve);
 
   const lipidRule = ruleFor(policy, 'calcium-phosphate-in-lipid', age);
   if (lipidRule && bag.grams.lipid.gt(0)) {
@@ -159,24 +173,24 @@ export const calciumPhosphate: Check = (bag, policy) => {
   return out;
 };
 
-/** The solubility-curve screen: a finding when a curve applies, else a note for the screens' messages. */
-function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, inBag: InBagGroups, caAndP: number[]): { finding: Finding | null; note: string | null } {
+/**
+ * The solubility-curve screen: its finding when a curve applies; else, when the policy screens by curve,
+ * how the product screen's message ends (a note on the curve, then the deference); else null.
+ */
+function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, inBag: InBagGroups, caAndP: number[]): Finding | string | null {
   const rule = ruleFor(policy, 'calcium-phosphate-curve', bag.order.patient.ageGroup);
-  if (!rule || !lv.inorganicPhosphateMmolPerL.gt(0)) return { finding: null, note: null };
-  const aminoAcids = aminoAcidsOf(inBag);
-  const only = aminoAcids.product;
-  if (!only) return { finding: null, note: 'The bag has no amino acids: published curves do not cover it.' };
-  if (aminoAcids.mixed) return { finding: null, note: 'The bag mixes amino-acid products: no single product curve applies.' };
+  if (!rule || !lv.inorganicPhosphateMmolPerL.gt(0)) return null;
+  const only = aminoAcidsOf(inBag);
+  if (!only) return NO_AMINO_ACIDS_END;
+  if (only === MIXED) return MIXED_END;
   const aaPercent = bag.percent.aminoAcids;
   const curve = curveFor(policy.solubilityCurves, only.id, aaPercent);
   if (!curve) {
-    const productHasCurves = policy.solubilityCurves.some((c) => c.aminoAcidProduct === only.id);
-    return {
-      finding: null,
-      note: productHasCurves
-        ? `The policy's curves for ${only.name} start above this bag's ${fmt(aaPercent, 2)}% amino acids: check the published curve.`
-        : `No solubility curve for ${only.name} is on file in the policy: check the published curve.`,
-    };
+    let productHasCurves = false;
+    for (const c of policy.solubilityCurves) if (c.aminoAcidProduct === only.id) productHasCurves = true;
+    return productHasCurves
+      ? withNote(`The policy's curves for ${only.name} start above this bag's ${fmt(aaPercent, 2)}% amino acids: check the published curve.`)
+      : kept(noCurveEnds, only, noCurveEndOf);
   }
   const p = lv.inorganicPhosphateMmolPerL;
   const ca = lv.calciumMEqPerL;
@@ -185,23 +199,19 @@ function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, inBag
   const curveName = `the ${curve.id} curve (${only.name} at ${numberText(curve.aminoAcidPercent)}% amino acids${conditions ? `, ${conditions}` : ''}; ${curve.source})`;
   const source = `${rule.source}; curve: ${curve.source}`;
   if (reading.where === 'beyond-last-point') {
-    return {
-      finding: fromRule('calcium-phosphate', rule, {
-        value: ca, limit: reading.lastCalciumMEqPerL, decimals: 2, screen: 'solubility-curve',
-        message: `Calcium ${fmt(ca, 2)} mEq/L is beyond the last point of ${curveName}: the curve does not show any phosphate compatible at this calcium. ${DEFER}`,
-        lines: caAndP, unit: 'mEq/L', source,
-      }),
-      note: null,
-    };
+    return fromRule('calcium-phosphate', rule, {
+      value: ca, limit: reading.lastCalciumMEqPerL, decimals: 2, screen: 'solubility-curve',
+      message: `Calcium ${fmt(ca, 2)} mEq/L is beyond the last point of ${curveName}: the curve does not show any phosphate compatible at this calcium. ${DEFER}`,
+      lines: caAndP, unit: 'mEq/L', source,
+    });
   }
   const limit = reading.maxPhosphateMmolPerL;
   const margin = limit.minus(p);
   const over = settled(p).gt(settled(limit));
   const below = reading.where === 'below-first-point' ? ` (calcium is below the curve's first point, whose phosphate is used)` : '';
-  const finding = fromRule('calcium-phosphate', rule, {
+  return fromRule('calcium-phosphate', rule, {
     value: p, limit, decimals: 2, screen: 'solubility-curve',
     message: `Inorganic phosphate ${fmt(p, 2)} mmol/L against ${curveName}: at ${fmt(ca, 2)} mEq/L calcium the curve allows ${fmt(limit, 2)} mmol/L${below}; ${over ? `over it by ${fmt(margin.neg(), 2)}` : `margin ${fmt(margin, 2)}`} mmol/L. ${DEFER}`,
     lines: caAndP, unit: 'mmol/L', source, within: !over,
   });
-  return { finding, note: null };
 }
