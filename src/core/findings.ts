@@ -31,6 +31,13 @@ export interface Finding {
   fields: string[];
 }
 
+/**
+ * No lines, or no fields: one shared empty list for every finding that names none. It is frozen, as
+ * findings and the reports built from them only read these lists (a report writes them out as `[]`).
+ */
+export const NO_LINES: number[] = Object.freeze([]) as unknown as number[];
+export const NO_FIELDS: string[] = NO_LINES as unknown as string[];
+
 /** A release check: a pure function from the computed bag and the policy to findings. */
 export type Check = (bag: Bag, policy: Policy) => Finding[];
 
@@ -66,12 +73,20 @@ export interface FindingParts {
  * the policy. The fields are always set in the same order, `nutrient` and `screen` only when given.
  */
 export function fromRule(code: FindingCode, rule: Rule, parts: FindingParts): Finding {
-  const f: Finding = {
-    code, severity: parts.within === true ? 'info' : rule.severity, unit: parts.unit ?? rule.unit, source: parts.source ?? rule.source,
-    value: parts.value, limit: parts.limit, decimals: parts.decimals, message: parts.message,
-    lines: parts.lines ?? [], fields: parts.fields ?? [],
-  };
-  if (parts.nutrient !== undefined) f.nutrient = parts.nutrient;
-  if (parts.screen !== undefined) f.screen = parts.screen;
-  return f;
+  const severity = parts.within === true ? 'info' : rule.severity;
+  const unit = parts.unit ?? rule.unit;
+  const source = parts.source ?? rule.source;
+  const { value, limit, decimals, message, nutrient, screen } = parts;
+  const lines = parts.lines ?? NO_LINES;
+  const fields = parts.fields ?? NO_FIELDS;
+  // One object literal for each set of fields: a field added to an object after it is made takes a
+  // second allocation for it, and every finding of a dose range has a nutrient.
+  if (nutrient !== undefined) {
+    return screen !== undefined
+      ? { code, severity, unit, source, value, limit, decimals, message, lines, fields, nutrient, screen }
+      : { code, severity, unit, source, value, limit, decimals, message, lines, fields, nutrient };
+  }
+  return screen !== undefined
+    ? { code, severity, unit, source, value, limit, decimals, message, lines, fields, screen }
+    : { code, severity, unit, source, value, limit, decimals, message, lines, fields };
 }

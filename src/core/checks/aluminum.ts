@@ -1,9 +1,9 @@
 import { ZERO } from '../decimal.ts';
 import { fmt } from '../format.ts';
-import { ruleFor } from '../policy.ts';
+import { ruleFor, type Rule } from '../policy.ts';
 import type { Bag, BagLine } from '../compute/bag.ts';
 import { fromRule, type Check } from '../findings.ts';
-import { settled, DEFER } from './limits.ts';
+import { kept, settled, DEFER, numberText, type ScreenWords } from './limits.ts';
 
 /** How many contributors a message names. */
 const TOP = 3;
@@ -19,6 +19,20 @@ function rank(top: BagLine[], l: BagLine): void {
   if (top.length < TOP) top.push(l);
   for (let i = top.length - 1; i > at; i--) top[i] = top[i - 1]!;
   top[at] = l;
+}
+
+const NO_VALUE = `No stock in this bag has an aluminum value in the catalog, so exposure cannot be estimated. Add each stock's labelled "contains no more than … µg/L" value. ${DEFER}`;
+const CONSIDER = ` Consider lower-aluminum stocks. ${DEFER}`;
+
+// Each rule's words after the figure, made once.
+const limitWords = new WeakMap<Rule, ScreenWords>();
+
+function limitWordsOf(rule: Rule): ScreenWords {
+  const bound = numberText(rule.max ?? ZERO);
+  return {
+    over: ` µg/kg/day is at or above the limit of ${bound} µg/kg/day: it accumulates, above all with immature or impaired kidneys.`,
+    within: ` µg/kg/day is below the limit of ${bound} µg/kg/day.`,
+  };
 }
 
 function inBagLines(bag: Bag): number[] {
@@ -53,7 +67,7 @@ export const aluminum: Check = (bag, policy) => {
   if (!known) {
     return [fromRule('aluminum', rule, {
       value: null, limit: rule.max, decimals: 2,
-      message: `No stock in this bag has an aluminum value in the catalog, so exposure cannot be estimated. Add each stock's labelled "contains no more than … µg/L" value. ${DEFER}`,
+      message: NO_VALUE,
       lines: inBagLines(bag),
     })];
   }
@@ -66,13 +80,14 @@ export const aluminum: Check = (bag, policy) => {
   if (topText !== '') topText += '.';
   const missingText = missing === '' ? '' : ` No aluminum value in the catalog for: ${missing} — the figure is a lower bound.`;
   const atOrOver = settled(value).gte(rule.max);
+  const words = kept(limitWords, rule, limitWordsOf);
   const lines: number[] = [];
   if (atOrOver) for (const l of top) lines.push(l.line.index);
   return [fromRule('aluminum', rule, {
     value, limit: rule.max, decimals: 2,
     message: atOrOver
-      ? `Aluminum ${fmt(value, 2)} µg/kg/day is at or above the limit of ${rule.max.toString()} µg/kg/day: it accumulates, above all with immature or impaired kidneys.${topText}${missingText} Consider lower-aluminum stocks. ${DEFER}`
-      : `Aluminum ${fmt(value, 2)} µg/kg/day is below the limit of ${rule.max.toString()} µg/kg/day.${topText}${missingText}`,
+      ? `Aluminum ${fmt(value, 2)}${words.over}${topText}${missingText}${CONSIDER}`
+      : `Aluminum ${fmt(value, 2)}${words.within}${topText}${missingText}`,
     lines,
     within: !atOrOver,
   })];

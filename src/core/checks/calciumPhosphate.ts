@@ -1,12 +1,13 @@
-import type { D } from '../decimal.ts';
+import { ZERO, type D } from '../decimal.ts';
 import { fmt } from '../format.ts';
-import { ruleFor, type Policy } from '../policy.ts';
+import { ruleFor, type Policy, type Rule } from '../policy.ts';
+import type { Route } from '../order.ts';
 import { perLitreOf, type Bag } from '../compute/bag.ts';
 import { as, mmolToMEq } from '../units.ts';
 import type { Product } from '../catalog.ts';
-import { fromRule, type Check, type Finding } from '../findings.ts';
-import { outside, settled, DEFER } from './limits.ts';
-import { GROUP, groupsOf } from './lineGroups.ts';
+import { fromRule, NO_LINES, type Check, type Finding } from '../findings.ts';
+import { kept, outside, settled, DEFER, numberText, type ScreenWords } from './limits.ts';
+import { anyIn, GROUP, inBagGroups, linesIn, type InBagGroups } from './lineGroups.ts';
 import { curveFor, readCurve } from './solubilityCurve.ts';
 
 /** Calcium and phosphate of a bag as the screens read them, per litre of the final volume. */
@@ -32,38 +33,54 @@ export function calciumPhosphateLevels(bag: Bag): CalciumPhosphateLevels {
 
 const SCREENS_ONLY = 'These are screens only: the solubility curve of the amino-acid product in this bag, at its amino-acid %, temperature and hang time, decides.';
 
-/** The lines the screens name, and the bag's amino-acid product, found in one pass over the lines in the bag. */
-interface ScreenLines {
-  calcium: number[];
-  /** Inorganic phosphate. */
-  phosphate: number[];
-  organic: number[];
-  /** Calcium with chloride (calcium chloride). */
-  calciumChloride: number[];
-  /** The bag's amino-acid product (the first, when it holds several); null without amino acids. */
-  aminoAcids: Product | null;
-  /** True when the bag holds more than one amino-acid product. */
-  mixedAminoAcids: boolean;
+// Each rule's words after the figures, made once: the product rule is the route's own
+// (calcium-phosphate-product-central or -peripheral), so its words name the route it is read for.
+const productWords = new WeakMap<Rule, ScreenWords>();
+const sumWords = new WeakMap<Rule, ScreenWords>();
+
+function productWordsOf(rule: Rule, route: Route): ScreenWords {
+  const bound = numberText(rule.max ?? ZERO);
+  return { over: ` mmol²/L², over the ${route} product screen of ${bound}.`, within: ` mmol²/L², within the ${route} product screen of ${bound}.` };
+}
+const centralProductWords = (rule: Rule): ScreenWords => productWordsOf(rule, 'central');
+const peripheralProductWords = (rule: Rule): ScreenWords => productWordsOf(rule, 'peripheral');
+
+function sumWordsOf(rule: Rule): ScreenWords {
+  const bound = numberText(rule.max ?? ZERO);
+  return { over: `, over the sum screen of ${bound}. ${SCREENS_ONLY} ${DEFER}`, within: `, within the sum screen of ${bound}. ${SCREENS_ONLY} ${DEFER}` };
 }
 
-function screenLines(bag: Bag): ScreenLines {
-  const out: ScreenLines = { calcium: [], phosphate: [], organic: [], calciumChloride: [], aminoAcids: null, mixedAminoAcids: false };
-  for (const l of bag.lines) {
-    if (!l.inBag) continue;
-    const groups = groupsOf(l.product);
-    const index = l.line.index;
-    if (groups & GROUP.Ca) {
-      out.calcium.push(index);
-      if (groups & GROUP.Cl) out.calciumChloride.push(index);
-    }
-    if (groups & GROUP.phosphate) out.phosphate.push(index);
-    if (groups & GROUP.glycerophosphate) out.organic.push(index);
-    if (groups & GROUP.aminoAcids) {
-      if (!out.aminoAcids || out.aminoAcids.id === l.product.id) out.aminoAcids = l.product;
-      else out.mixedAminoAcids = true;
-    }
+const SCREENS_ONLY_DEFER = ` ${SCREENS_ONLY} ${DEFER}`;
+const CHLORIDE_MESSAGE = `Calcium chloride with inorganic phosphate: calcium chloride dissociates more than calcium gluconate, so less phosphate stays in solution, whatever the screens above say. Use calcium gluconate, or confirm this combination against a solubility curve made with calcium chloride. ${DEFER}`;
+
+/** What aminoAcidsOf gives for a bag holding more than one amino-acid product. */
+const MIXED = 'mixed';
+
+/** The bag's amino-acid product; MIXED when it holds more than one, null without amino acids. */
+function aminoAcidsOf(lines: InBagGroups): Product | typeof MIXED | null {
+  let product: Product | null = null;
+  for (let i = 0; i < lines.count; i++) {
+    if ((lines.groups[i]! & GROUP.aminoAcids) === 0) continue;
+    const p = lines.product[i]!;
+    if (!product || product.id === p.id) product = p;
+    else return MIXED;
   }
-  return out;
+  return product;
+}
+
+/** How the product screen's message ends when a note on the curve goes before the deference. */
+function withNote(note: string): string {
+  return ` ${SCREENS_ONLY} ${note} ${DEFER}`;
+}
+
+const NO_AMINO_ACIDS_END = withNote('The bag has no amino acids: published curves do not cover it.');
+const MIXED_END = withNote('The bag mixes amino-acid products: no single product curve applies.');
+
+// For each amino-acid product, the end of the message when the policy holds no curve for it (made once).
+const noCurveEnds = new WeakMap<Product, string>();
+
+function noCurveEndOf(product: Product): string {
+  return withNote(`No solubility curve for ${product.name} is on file in the policy: check the published curve.`);
 }
 
 /**
@@ -82,12 +99,10 @@ export const calciumPhosphate: Check = (bag, policy) => {
   if (!lv.calciumMmolPerL.gt(0) || !(pInorganic.gt(0) || pOrganic.gt(0))) return [];
   const age = bag.order.patient.ageGroup;
   const route = bag.order.route;
-  const lines = screenLines(bag);
-  const caLines = lines.calcium;
-  const pLines = lines.phosphate;
-  const organicLines = lines.organic;
-  const curve = curveScreen(bag, policy, lv, lines);
-  const curveNote = curve.note ? ` ${curve.note}` : '';
+  const lines = inBagGroups(bag);
+  // The calcium lines, then the inorganic phosphate ones: the lines the product, sum and curve screens name.
+  const caAndP = pInorganic.gt(0) ? linesIn(lines, GROUP.Ca, GROUP.phosphate) : NO_LINES;
+  const curve = curveScreen(bag, policy, lv, lines, caAndP);
   const hasOrganic = pOrganic.gt(0);
   const organicText = hasOrganic ? fmt(pOrganic, 2) : '';
   const calciumText = fmt(lv.calciumMmolPerL, 2);
@@ -100,10 +115,11 @@ export const calciumPhosphate: Check = (bag, policy) => {
     if (productRule?.max) {
       const product = lv.calciumMmolPerL.times(pInorganic);
       const over = outside(product, productRule) === 'max';
+      const words = kept(productWords, productRule, route === 'central' ? centralProductWords : peripheralProductWords);
       out.push(fromRule('calcium-phosphate', productRule, {
         value: product, limit: productRule.max, decimals: 1, screen: 'product',
-        message: `Ca × P = ${calciumText} mmol/L calcium × ${inorganicText} mmol/L inorganic phosphate = ${fmt(product, 1)} mmol²/L², ${over ? 'over' : 'within'} the ${route} product screen of ${productRule.max.toString()}.${organicNote} ${SCREENS_ONLY}${curveNote} ${DEFER}`,
-        lines: [...caLines, ...pLines],
+        message: `Ca × P = ${calciumText} mmol/L calcium × ${inorganicText} mmol/L inorganic phosphate = ${fmt(product, 1)}${over ? words.over : words.within}${organicNote}${typeof curve === 'string' ? curve : SCREENS_ONLY_DEFER}`,
+        lines: caAndP,
         within: !over,
       }));
     }
@@ -111,19 +127,20 @@ export const calciumPhosphate: Check = (bag, policy) => {
     if (sumRule?.max) {
       const total = lv.calciumMEqPerL.plus(pInorganic);
       const over = outside(total, sumRule) === 'max';
+      const words = kept(sumWords, sumRule, sumWordsOf);
       out.push(fromRule('calcium-phosphate', sumRule, {
         value: total, limit: sumRule.max, decimals: 1, screen: 'sum',
-        message: `Ca + P = ${fmt(lv.calciumMEqPerL, 2)} mEq/L calcium + ${inorganicText} mmol/L inorganic phosphate = ${fmt(total, 1)}, ${over ? 'over' : 'within'} the sum screen of ${sumRule.max.toString()}. ${SCREENS_ONLY} ${DEFER}`,
-        lines: [...caLines, ...pLines],
+        message: `Ca + P = ${fmt(lv.calciumMEqPerL, 2)} mEq/L calcium + ${inorganicText} mmol/L inorganic phosphate = ${fmt(total, 1)}${over ? words.over : words.within}`,
+        lines: caAndP,
         within: !over,
       }));
     }
     const chlorideRule = ruleFor(policy, 'calcium-chloride-phosphate', age);
-    if (chlorideRule && lines.calciumChloride.length > 0) {
+    if (chlorideRule && anyIn(lines, GROUP.calciumChloride)) {
       out.push(fromRule('calcium-phosphate', chlorideRule, {
         value: null, limit: null, decimals: 0, screen: 'calcium-chloride',
-        message: `Calcium chloride with inorganic phosphate: calcium chloride dissociates more than calcium gluconate, so less phosphate stays in solution, whatever the screens above say. Use calcium gluconate, or confirm this combination against a solubility curve made with calcium chloride. ${DEFER}`,
-        lines: [...lines.calciumChloride, ...pLines],
+        message: CHLORIDE_MESSAGE,
+        lines: linesIn(lines, GROUP.calciumChloride, GROUP.phosphate),
       }));
     }
   }
@@ -133,72 +150,68 @@ export const calciumPhosphate: Check = (bag, policy) => {
     if (organicRule) {
       const over = outside(pOrganic, organicRule) === 'max';
       const inorganicText = pInorganic.gt(0) ? '' : ' With no inorganic phosphate, the inorganic screens are not triggered.';
-      const limitText = organicRule.max ? ` Tested up to ${organicRule.max.toString()} mmol/L${over ? ': this bag is beyond what was tested' : ''} (calcium here ${calciumText} mmol/L).` : '';
+      const limitText = organicRule.max ? ` Tested up to ${numberText(organicRule.max)} mmol/L${over ? ': this bag is beyond what was tested' : ''} (calcium here ${calciumText} mmol/L).` : '';
       out.push(fromRule('calcium-phosphate', organicRule, {
         value: pOrganic, limit: organicRule.max, decimals: 2, screen: 'organic-phosphate',
         message: `Organic phosphate (glycerophosphate) ${organicText} mmol/L is reported separately: organic phosphate salts stay in solution with calcium far above inorganic ones.${limitText}${inorganicText} ${DEFER}`,
-        lines: [...organicLines, ...caLines],
+        lines: linesIn(lines, GROUP.glycerophosphate, GROUP.Ca),
         within: !over,
       }));
     }
   }
 
-  if (curve.finding) out.push(curve.finding);
+  if (curve !== null && typeof curve !== 'string') out.push(curve);
 
   const lipidRule = ruleFor(policy, 'calcium-phosphate-in-lipid', age);
   if (lipidRule && bag.grams.lipid.gt(0)) {
     out.push(fromRule('calcium-phosphate', lipidRule, {
       value: null, limit: null, decimals: 0, screen: 'hidden-by-lipid',
       message: 'This is a 3-in-1: a calcium phosphate precipitate cannot be seen in the emulsion, so visual inspection cannot rule it out. Rely on the curve and the screens, and use the in-line filter the policy requires.',
-      lines: [...caLines, ...pLines, ...organicLines],
+      lines: linesIn(lines, GROUP.Ca, GROUP.phosphate, GROUP.glycerophosphate),
     }));
   }
   return out;
 };
 
-/** The solubility-curve screen: a finding when a curve applies, else a note for the screens' messages. */
-function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, screen: ScreenLines): { finding: Finding | null; note: string | null } {
+/**
+ * The solubility-curve screen: its finding when a curve applies; else, when the policy screens by curve,
+ * how the product screen's message ends (a note on the curve, then the deference); else null.
+ */
+function curveScreen(bag: Bag, policy: Policy, lv: CalciumPhosphateLevels, inBag: InBagGroups, caAndP: number[]): Finding | string | null {
   const rule = ruleFor(policy, 'calcium-phosphate-curve', bag.order.patient.ageGroup);
-  if (!rule || !lv.inorganicPhosphateMmolPerL.gt(0)) return { finding: null, note: null };
-  const only = screen.aminoAcids;
-  if (!only) return { finding: null, note: 'The bag has no amino acids: published curves do not cover it.' };
-  if (screen.mixedAminoAcids) return { finding: null, note: 'The bag mixes amino-acid products: no single product curve applies.' };
-  const lines = [...screen.calcium, ...screen.phosphate];
+  if (!rule || !lv.inorganicPhosphateMmolPerL.gt(0)) return null;
+  const only = aminoAcidsOf(inBag);
+  if (!only) return NO_AMINO_ACIDS_END;
+  if (only === MIXED) return MIXED_END;
   const aaPercent = bag.percent.aminoAcids;
   const curve = curveFor(policy.solubilityCurves, only.id, aaPercent);
   if (!curve) {
-    const productHasCurves = policy.solubilityCurves.some((c) => c.aminoAcidProduct === only.id);
-    return {
-      finding: null,
-      note: productHasCurves
-        ? `The policy's curves for ${only.name} start above this bag's ${fmt(aaPercent, 2)}% amino acids: check the published curve.`
-        : `No solubility curve for ${only.name} is on file in the policy: check the published curve.`,
-    };
+    let productHasCurves = false;
+    for (const c of policy.solubilityCurves) if (c.aminoAcidProduct === only.id) productHasCurves = true;
+    return productHasCurves
+      ? withNote(`The policy's curves for ${only.name} start above this bag's ${fmt(aaPercent, 2)}% amino acids: check the published curve.`)
+      : kept(noCurveEnds, only, noCurveEndOf);
   }
   const p = lv.inorganicPhosphateMmolPerL;
   const ca = lv.calciumMEqPerL;
   const reading = readCurve(curve, ca);
-  const conditions = [curve.temperatureC ? `${curve.temperatureC.toString()} °C` : '', curve.hours ? `${curve.hours.toString()} h` : ''].filter((x) => x !== '').join(', ');
-  const curveName = `the ${curve.id} curve (${only.name} at ${curve.aminoAcidPercent.toString()}% amino acids${conditions ? `, ${conditions}` : ''}; ${curve.source})`;
+  const conditions = [curve.temperatureC ? `${numberText(curve.temperatureC)} °C` : '', curve.hours ? `${numberText(curve.hours)} h` : ''].filter((x) => x !== '').join(', ');
+  const curveName = `the ${curve.id} curve (${only.name} at ${numberText(curve.aminoAcidPercent)}% amino acids${conditions ? `, ${conditions}` : ''}; ${curve.source})`;
   const source = `${rule.source}; curve: ${curve.source}`;
   if (reading.where === 'beyond-last-point') {
-    return {
-      finding: fromRule('calcium-phosphate', rule, {
-        value: ca, limit: reading.lastCalciumMEqPerL, decimals: 2, screen: 'solubility-curve',
-        message: `Calcium ${fmt(ca, 2)} mEq/L is beyond the last point of ${curveName}: the curve does not show any phosphate compatible at this calcium. ${DEFER}`,
-        lines, unit: 'mEq/L', source,
-      }),
-      note: null,
-    };
+    return fromRule('calcium-phosphate', rule, {
+      value: ca, limit: reading.lastCalciumMEqPerL, decimals: 2, screen: 'solubility-curve',
+      message: `Calcium ${fmt(ca, 2)} mEq/L is beyond the last point of ${curveName}: the curve does not show any phosphate compatible at this calcium. ${DEFER}`,
+      lines: caAndP, unit: 'mEq/L', source,
+    });
   }
   const limit = reading.maxPhosphateMmolPerL;
   const margin = limit.minus(p);
   const over = settled(p).gt(settled(limit));
   const below = reading.where === 'below-first-point' ? ` (calcium is below the curve's first point, whose phosphate is used)` : '';
-  const finding = fromRule('calcium-phosphate', rule, {
+  return fromRule('calcium-phosphate', rule, {
     value: p, limit, decimals: 2, screen: 'solubility-curve',
     message: `Inorganic phosphate ${fmt(p, 2)} mmol/L against ${curveName}: at ${fmt(ca, 2)} mEq/L calcium the curve allows ${fmt(limit, 2)} mmol/L${below}; ${over ? `over it by ${fmt(margin.neg(), 2)}` : `margin ${fmt(margin, 2)}`} mmol/L. ${DEFER}`,
-    lines, unit: 'mmol/L', source, within: !over,
+    lines: caAndP, unit: 'mmol/L', source, within: !over,
   });
-  return { finding, note: null };
 }

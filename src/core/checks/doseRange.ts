@@ -4,9 +4,9 @@ import type { AgeGroup } from '../order.ts';
 import { doseRangeFor, DOSE_NUTRIENTS, type DoseNutrient, type Policy, type Rule } from '../policy.ts';
 import { perKgOf, type Bag } from '../compute/bag.ts';
 import { as, mmolToMEq } from '../units.ts';
-import { fromRule, type Check, type Finding } from '../findings.ts';
+import { NO_FIELDS, type Check, type Finding } from '../findings.ts';
 import { outside, rangeText, reportedLimit, AGE_LABEL, DEFER } from './limits.ts';
-import { GROUP, groupsOf } from './lineGroups.ts';
+import { GROUP, inBagGroups, linesIn, type InBagGroups } from './lineGroups.ts';
 
 const LABEL: Readonly<Record<DoseNutrient, string>> = {
   fluid: 'Fluid', energy: 'Energy', protein: 'Protein (amino acids)', lipid: 'Lipid', lipidRate: 'Lipid infusion rate',
@@ -85,6 +85,20 @@ interface DoseScreen {
   below: string;
   within: string;
   contributors: number;
+  /**
+   * The bounds as whole numbers of 10^−decimals (min 0.8 at 2 decimals → 80), when both are exactly that
+   * (else `scaled` is false): a dose rounded to its decimals is then screened without a decimal made for it.
+   */
+  scaled: boolean;
+  minScaled: number | null;
+  maxScaled: number | null;
+}
+
+/** A bound as a whole number of 10^−places, or NaN when it is not one (0.125 at 2 places). */
+function scaledBound(bound: D | null, places: number): number {
+  if (bound === null) return 0;
+  const q = bound.toScaledInteger(places);
+  return bound.toDecimalPlaces(places).eq(bound) && q < 1e15 && q > -1e15 ? q : NaN;
 }
 
 function doseScreen(nutrient: DoseNutrient, rule: Rule, ageGroup: AgeGroup): DoseScreen {
@@ -93,12 +107,17 @@ function doseScreen(nutrient: DoseNutrient, rule: Rule, ageGroup: AgeGroup): Dos
   // NPC:N is information with a usual range; the doses are screened against the age group's range.
   const usual = nutrient === 'npcToN';
   const forWho = usual ? 'the usual range' : `the range for ${AGE_LABEL[ageGroup]}`;
+  const minScaled = scaledBound(rule.min, DECIMALS[nutrient]);
+  const maxScaled = scaledBound(rule.max, DECIMALS[nutrient]);
   return {
     nutrient, rule, unit: doseUnit(rule.unit), decimals: DECIMALS[nutrient], head: `${LABEL[nutrient]} `,
     above: usual ? `${unit} is above ${forWho}, ${range}.` : `${unit} is above ${forWho}, ${range}: confirm it is intended (for example replacement of losses). ${DEFER}`,
     below: usual ? `${unit} is below ${forWho}, ${range}.` : `${unit} is below ${forWho}, ${range}: confirm it is intended or given another way. ${DEFER}`,
     within: `${unit} is within ${forWho}, ${range}.`,
     contributors: CONTRIBUTORS[nutrient],
+    scaled: !Number.isNaN(minScaled) && !Number.isNaN(maxScaled),
+    minScaled: rule.min ? minScaled : null,
+    maxScaled: rule.max ? maxScaled : null,
   };
 }
 
@@ -124,36 +143,40 @@ function doseScreens(policy: Policy, ageGroup: AgeGroup): readonly DoseScreen[] 
   return screens;
 }
 
-/** For each screen, the indexes of the lines that bring its nutrient: one pass over the bag's lines. */
-function contributingLines(bag: Bag, screens: readonly DoseScreen[]): number[][] {
-  const out: number[][] = [];
-  for (let i = 0; i < screens.length; i++) out.push([]);
-  for (const l of bag.lines) {
-    if (!l.inBag) continue;
-    const groups = groupsOf(l.product);
-    if (groups === 0) continue;
-    for (let i = 0; i < screens.length; i++) if ((screens[i]!.contributors & groups) !== 0) out[i]!.push(l.line.index);
-  }
-  return out;
-}
+const FLUID_FIELDS = ['volumeMl'];
+const RATE_FIELDS = ['hours'];
 
-function rangeFinding(bag: Bag, screen: DoseScreen, lines: number[]): Finding | null {
+function rangeFinding(bag: Bag, screen: DoseScreen, lines: InBagGroups): Finding | null {
   const { nutrient, rule, decimals } = screen;
   const value = dose(bag, nutrient, screen.unit);
   if (value === null) return null;
   // Nothing of it in the bag and no minimum: there is nothing to screen (e.g. lipid given separately).
   if (value.isZero() && !rule.min) return null;
   // A dose is screened as it is shown: measured volumes (10 mEq calcium → 21.5 mL → 9.9975 mEq) that
-  // display as the limit meet it, so the pharmacist never reads "10.00 against 10" as a warning.
-  const shown = value.toDecimalPlaces(decimals);
-  const crossed = outside(shown, rule);
-  return fromRule('dose-range', rule, {
+  // display as the limit meet it, so the pharmacist never reads "10.00 against 10" as a warning. The
+  // shown dose is the whole number q of 10^−decimals; fmt writes the same digits from the dose itself.
+  const q = value.toScaledInteger(decimals);
+  let crossed: 'min' | 'max' | null;
+  let text: string;
+  if (screen.scaled && q < 1e15 && q > -1e15) {
+    const { minScaled, maxScaled } = screen;
+    crossed = minScaled !== null && q < minScaled ? 'min' : maxScaled !== null && q > maxScaled ? 'max' : null;
+    text = fmt(value, decimals);
+  } else {
+    const shown = value.toDecimalPlaces(decimals);
+    crossed = outside(shown, rule);
+    text = fmt(shown, decimals);
+  }
+  // The finding as fromRule makes it, its fields in the same order, made here without a parts object:
+  // a dose range makes about ten findings for every bag.
+  return {
+    code: 'dose-range', severity: crossed === null ? 'info' : rule.severity, unit: rule.unit, source: rule.source,
     value, limit: reportedLimit(rule, crossed), decimals,
-    message: screen.head + fmt(shown, decimals) + (crossed === 'max' ? screen.above : crossed === 'min' ? screen.below : screen.within),
-    nutrient, lines,
-    fields: nutrient === 'fluid' ? ['volumeMl'] : nutrient === 'lipidRate' ? ['hours'] : [],
-    within: crossed === null,
-  });
+    message: screen.head + text + (crossed === 'max' ? screen.above : crossed === 'min' ? screen.below : screen.within),
+    lines: linesIn(lines, screen.contributors),
+    fields: nutrient === 'fluid' ? FLUID_FIELDS : nutrient === 'lipidRate' ? RATE_FIELDS : NO_FIELDS,
+    nutrient,
+  };
 }
 
 /**
@@ -165,10 +188,10 @@ function rangeFinding(bag: Bag, screen: DoseScreen, lines: number[]): Finding | 
 export const doseRange: Check = (bag, policy) => {
   if (bag.finalVolumeMl.isZero()) return [];
   const screens = doseScreens(policy, bag.order.patient.ageGroup);
-  const lines = contributingLines(bag, screens);
+  const lines = inBagGroups(bag);
   const out: Finding[] = [];
   for (let i = 0; i < screens.length; i++) {
-    const f = rangeFinding(bag, screens[i]!, lines[i]!);
+    const f = rangeFinding(bag, screens[i]!, lines);
     if (f) out.push(f);
   }
   return out;

@@ -2,7 +2,7 @@ import { fmt, fmtTrim } from '../format.ts';
 import { girRuleFor } from '../policy.ts';
 import type { Bag } from '../compute/bag.ts';
 import { fromRule, type Check } from '../findings.ts';
-import { outside, rangeText, reportedLimit, AGE_LABEL, DEFER } from './limits.ts';
+import { outside, rangeText, reportedLimit, AGE_LABEL, DEFER, numberText } from './limits.ts';
 
 function dextroseLines(bag: Bag): number[] {
   const out: number[] = [];
@@ -22,7 +22,7 @@ export const gir: Check = (bag, policy) => {
   if (!rule || (!rule.min && !rule.max)) return [];
   const value = bag.girMgPerKgPerMin;
   const crossed = outside(value, rule);
-  const band = 'upToKg' in rule ? (rule.upToKg ? ` (weight band up to ${rule.upToKg.toString()} kg)` : ' (heaviest weight band)') : '';
+  const band = 'upToKg' in rule ? (rule.upToKg ? ` (weight band up to ${numberText(rule.upToKg)} kg)` : ' (heaviest weight band)') : '';
   const who = `${AGE_LABEL[ageGroup]} of ${fmtTrim(weightKg, 3)} kg${band}`;
   const range = rangeText(rule);
   const message = crossed === 'max'

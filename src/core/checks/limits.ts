@@ -26,6 +26,35 @@ export function outside(value: D, rule: Pick<Rule, 'min' | 'max'>): 'min' | 'max
   return null;
 }
 
+/**
+ * The value kept in `map` for `key`, made by `make` on first use: for texts and figures that depend on an
+ * immutable policy value alone (a rule, a decimal), made once instead of for every bag.
+ */
+export function kept<K extends object, V>(map: WeakMap<K, V>, key: K, make: (key: K) => V): V {
+  let value = map.get(key);
+  if (value === undefined) {
+    value = make(key);
+    map.set(key, value);
+  }
+  return value;
+}
+
+/** The words of a screen's message after its figures: for a figure over the rule's bound, and within it. */
+export interface ScreenWords { over: string; within: string }
+
+// Each policy number's text, written once: a policy's decimals are immutable values, read for every bag.
+const numberTexts = new WeakMap<D, string>();
+
+/** A number of the policy (a bound, a curve's temperature) as text, as the policy writes it: "0.125", "4". */
+export function numberText(x: D): string {
+  let text = numberTexts.get(x);
+  if (text === undefined) {
+    text = x.toString();
+    numberTexts.set(x, text);
+  }
+  return text;
+}
+
 function rangeTextOf(rule: Pick<Rule, 'min' | 'max' | 'unit'>): string {
   if (rule.min && rule.max) return `${rule.min.toString()}–${rule.max.toString()} ${rule.unit}`;
   if (rule.max) return `≤ ${rule.max.toString()} ${rule.unit}`;

@@ -2,7 +2,7 @@ import { fmt } from '../format.ts';
 import { ruleFor } from '../policy.ts';
 import { perLitreOf, type Bag } from '../compute/bag.ts';
 import { fromRule, type Check } from '../findings.ts';
-import { outside, AGE_LABEL, DEFER } from './limits.ts';
+import { outside, AGE_LABEL, DEFER, numberText } from './limits.ts';
 
 function potassiumLines(bag: Bag): number[] {
   const out: number[] = [];
@@ -24,8 +24,8 @@ export const potassiumPeripheral: Check = (bag, policy) => {
   return [fromRule('potassium-peripheral', rule, {
     value: k, limit: rule.max, decimals: 1,
     message: over
-      ? `Potassium ${fmt(k, 1)} mmol/L is over the peripheral limit of ${rule.max.toString()} mmol/L for ${AGE_LABEL[bag.order.patient.ageGroup]}: concentrated potassium irritates a peripheral vein. Give it centrally, raise the volume or lower the potassium. ${DEFER}`
-      : `Potassium ${fmt(k, 1)} mmol/L is within the peripheral limit of ${rule.max.toString()} mmol/L.`,
+      ? `Potassium ${fmt(k, 1)} mmol/L is over the peripheral limit of ${numberText(rule.max)} mmol/L for ${AGE_LABEL[bag.order.patient.ageGroup]}: concentrated potassium irritates a peripheral vein. Give it centrally, raise the volume or lower the potassium. ${DEFER}`
+      : `Potassium ${fmt(k, 1)} mmol/L is within the peripheral limit of ${numberText(rule.max)} mmol/L.`,
     lines: potassiumLines(bag),
     fields: ['route', 'volumeMl'],
     within: !over,

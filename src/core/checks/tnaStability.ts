@@ -1,10 +1,10 @@
 import { D, ZERO } from '../decimal.ts';
 import { fmt } from '../format.ts';
-import { ruleFor, type Rule } from '../policy.ts';
+import { ruleFor, type Rule, type RuleCode } from '../policy.ts';
 import { perLitre, type Bag } from '../compute/bag.ts';
 import { fromRule, type Check, type Finding } from '../findings.ts';
-import { outside, rangeText, reportedLimit, DEFER } from './limits.ts';
-import { GROUP, groupsOf } from './lineGroups.ts';
+import { kept, outside, rangeText, reportedLimit, DEFER, numberText, type ScreenWords } from './limits.ts';
+import { GROUP, inBagGroups, linesIn, type InBagGroups } from './lineGroups.ts';
 
 // Dextrose monohydrate C6H12O6·H2O 198.17 g/mol and anhydrous glucose 180.16 g/mol (IUPAC atomic weights):
 // the ASPEN minimum is written for the monohydrate, so anhydrous grams count × 198.17/180.16.
@@ -39,34 +39,52 @@ export function criticalAggregationNumber(loads: { monovalent: D; divalent: D; t
   return loads.monovalent.plus(loads.divalent.times(64)).plus(loads.trivalent.times(729));
 }
 
-function minimumFinding(rule: Rule | null, value: D, what: string, nutrient: string, lines: number[]): Finding | null {
-  if (!rule?.min) return null;
-  const crossed = outside(value, rule);
-  return fromRule('tna-stability', rule, {
-    value, limit: reportedLimit(rule, crossed), decimals: 2, screen: `${nutrient}-minimum`, nutrient,
-    message: crossed === 'min'
-      ? `3-in-1 final ${what} ${fmt(value, 2)}% is below the stability minimum of ${rule.min.toString()}%: the emulsion is less likely to stay stable for the usual hang and storage time. Consider a 2-in-1 with the lipid given separately, or shorten the storage time. ${DEFER}`
-      : `3-in-1 final ${what} ${fmt(value, 2)}% meets the stability minimum (${rangeText(rule)}).`,
-    lines, within: crossed === null,
-  });
+/** One of the three minimums: its rule, the words that open its message, its nutrient and screen, and the group of its lines. */
+interface Minimum { id: RuleCode; head: string; nutrient: string; screen: string; group: number }
+
+const MINIMUMS: readonly Minimum[] = [
+  { id: 'tna-amino-acids-min', head: '3-in-1 final amino acids ', nutrient: 'amino-acids', screen: 'amino-acids-minimum', group: GROUP.aminoAcids },
+  { id: 'tna-dextrose-min', head: '3-in-1 final dextrose (as monohydrate) ', nutrient: 'dextrose', screen: 'dextrose-minimum', group: GROUP.dextrose },
+  { id: 'tna-lipid-min', head: '3-in-1 final lipid ', nutrient: 'lipid', screen: 'lipid-minimum', group: GROUP.lipid },
+];
+
+// Each rule's words after the figure, made once.
+const minimumWords = new WeakMap<Rule, ScreenWords>();
+const divalentWords = new WeakMap<Rule, ScreenWords>();
+
+function minimumWordsOf(rule: Rule): ScreenWords {
+  return {
+    over: `% is below the stability minimum of ${numberText(rule.min ?? ZERO)}%: the emulsion is less likely to stay stable for the usual hang and storage time. Consider a 2-in-1 with the lipid given separately, or shorten the storage time. ${DEFER}`,
+    within: `% meets the stability minimum (${rangeText(rule)}).`,
+  };
 }
 
-/** The lines each screen names, found in one pass over the lines in the bag. */
-interface ScreenLines { aminoAcids: number[]; dextrose: number[]; lipid: number[]; divalent: number[]; cations: number[] }
+function divalentWordsOf(rule: Rule): ScreenWords {
+  return {
+    over: ` mmol/L are over the 3-in-1 limit of ${numberText(rule.max ?? ZERO)} mmol/L: divalent cations destabilise the emulsion. ${DEFER}`,
+    within: ` mmol/L are within the 3-in-1 limit (${rangeText(rule)}).`,
+  };
+}
 
-function screenLines(bag: Bag): ScreenLines {
-  const out: ScreenLines = { aminoAcids: [], dextrose: [], lipid: [], divalent: [], cations: [] };
-  for (const l of bag.lines) {
-    if (!l.inBag) continue;
-    const groups = groupsOf(l.product);
-    const index = l.line.index;
-    if (groups & GROUP.aminoAcids) out.aminoAcids.push(index);
-    if (groups & GROUP.dextrose) out.dextrose.push(index);
-    if (groups & GROUP.lipid) out.lipid.push(index);
-    if (groups & (GROUP.Ca | GROUP.Mg)) out.divalent.push(index);
-    if (groups & CATIONS) out.cations.push(index);
-  }
-  return out;
+// The critical aggregation number's words after its figure: the formula's legend, the threshold, and
+// whether the figure is over it.
+const canWords = new WeakMap<Rule, ScreenWords>();
+
+function canWordsOf(rule: Rule): ScreenWords {
+  const legend = ' mmol/L (a: Na + K, b: Ca + Mg, c: trivalent cations, each mmol/L)';
+  const threshold = rule.max ? `; the policy's threshold is ${numberText(rule.max)}` : '; no threshold is set, as no reliable published one exists';
+  return { over: `${legend}${threshold}. It is over the threshold. ${DEFER}`, within: `${legend}${threshold}.` };
+}
+
+function minimumFinding(rule: Rule | null, value: D, minimum: Minimum, lines: InBagGroups): Finding | null {
+  if (!rule?.min) return null;
+  const crossed = outside(value, rule);
+  const words = kept(minimumWords, rule, minimumWordsOf);
+  return fromRule('tna-stability', rule, {
+    value, limit: reportedLimit(rule, crossed), decimals: 2, screen: minimum.screen, nutrient: minimum.nutrient,
+    message: minimum.head + fmt(value, 2) + (crossed === 'min' ? words.over : words.within),
+    lines: linesIn(lines, minimum.group), within: crossed === null,
+  });
 }
 
 /**
@@ -78,25 +96,24 @@ function screenLines(bag: Bag): ScreenLines {
 export const tnaStability: Check = (bag, policy) => {
   if (!bag.grams.lipid.gt(0) || bag.finalVolumeMl.isZero()) return [];
   const age = bag.order.patient.ageGroup;
-  const lines = screenLines(bag);
+  const lines = inBagGroups(bag);
   const out: Finding[] = [];
-  const minimums = [
-    minimumFinding(ruleFor(policy, 'tna-amino-acids-min', age), bag.percent.aminoAcids, 'amino acids', 'amino-acids', lines.aminoAcids),
-    minimumFinding(ruleFor(policy, 'tna-dextrose-min', age), dextroseMonohydratePercent(bag), 'dextrose (as monohydrate)', 'dextrose', lines.dextrose),
-    minimumFinding(ruleFor(policy, 'tna-lipid-min', age), bag.percent.lipid, 'lipid', 'lipid', lines.lipid),
-  ];
-  for (const f of minimums) if (f) out.push(f);
+  for (let i = 0; i < MINIMUMS.length; i++) {
+    const minimum = MINIMUMS[i]!;
+    const value = i === 0 ? bag.percent.aminoAcids : i === 1 ? dextroseMonohydratePercent(bag) : bag.percent.lipid;
+    const f = minimumFinding(ruleFor(policy, minimum.id, age), value, minimum, lines);
+    if (f) out.push(f);
+  }
   const loads = cationLoads(bag);
   const divalentText = fmt(loads.divalent, 2);
   const divalentRule = ruleFor(policy, 'tna-divalent', age);
   if (divalentRule?.max) {
     const crossed = outside(loads.divalent, divalentRule);
+    const words = kept(divalentWords, divalentRule, divalentWordsOf);
     out.push(fromRule('tna-stability', divalentRule, {
       value: loads.divalent, limit: divalentRule.max, decimals: 2, screen: 'divalent-cations',
-      message: crossed
-        ? `Divalent cations (calcium + magnesium) ${divalentText} mmol/L are over the 3-in-1 limit of ${divalentRule.max.toString()} mmol/L: divalent cations destabilise the emulsion. ${DEFER}`
-        : `Divalent cations (calcium + magnesium) ${divalentText} mmol/L are within the 3-in-1 limit (${rangeText(divalentRule)}).`,
-      lines: lines.divalent,
+      message: `Divalent cations (calcium + magnesium) ${divalentText}${crossed ? words.over : words.within}`,
+      lines: linesIn(lines, GROUP.Ca | GROUP.Mg),
       within: crossed === null,
     }));
   }
@@ -104,12 +121,11 @@ export const tnaStability: Check = (bag, policy) => {
   if (canRule) {
     const can = criticalAggregationNumber(loads);
     const crossed = canRule.max ? outside(can, canRule) : null;
-    const formula = `CAN = a + 64b + 729c = ${fmt(loads.monovalent, 2)} + 64 × ${divalentText} + 729 × ${fmt(loads.trivalent, 2)} = ${fmt(can, 1)} mmol/L (a: Na + K, b: Ca + Mg, c: trivalent cations, each mmol/L)`;
-    const threshold = canRule.max ? `; the policy's threshold is ${canRule.max.toString()}` : '; no threshold is set, as no reliable published one exists';
+    const words = kept(canWords, canRule, canWordsOf);
     out.push(fromRule('tna-stability', canRule, {
       value: can, limit: canRule.max, decimals: 1, screen: 'critical-aggregation-number',
-      message: `Critical aggregation number (information): ${formula}${threshold}.${crossed ? ` It is over the threshold. ${DEFER}` : ''}`,
-      lines: lines.cations,
+      message: `Critical aggregation number (information): CAN = a + 64b + 729c = ${fmt(loads.monovalent, 2)} + 64 × ${divalentText} + 729 × ${fmt(loads.trivalent, 2)} = ${fmt(can, 1)}${crossed ? words.over : words.within}`,
+      lines: linesIn(lines, CATIONS),
       within: crossed === null,
     }));
   }
