@@ -31,14 +31,38 @@ export function fmt(value: D, places: number): string {
   // number of 10^−places below 10¹⁵ (so the report's number holds it exactly, as shown() requires).
   const q = value.toScaledInteger(places);
   if (q < 1e15 && q > -1e15 && places < ZEROS.length) {
-    let text = String(q < 0 ? -q : q);
-    if (places > 0) {
+    const m = q < 0 ? -q : q;
+    let text: string;
+    if (places === 0) text = String(m);
+    else if (places <= FRACTION_PLACES) {
+      const unit = POWERS[places]!;
+      const whole = Math.floor(m / unit);
+      text = String(whole) + fraction(places, m - whole * unit);
+    } else {
+      text = String(m);
       if (text.length <= places) text = ZEROS[places + 1 - text.length]! + text;
       text = `${text.slice(0, text.length - places)}.${text.slice(text.length - places)}`;
     }
     return q < 0 ? `-${text}` : text;
   }
   return shown(value, places).toFixed(places);
+}
+
+// ".00" … ".99" and so on for 1–3 places, each written the first time it is shown and kept: display text
+// is then the whole part's digits and a kept string.
+const FRACTION_PLACES = 3;
+const POWERS: readonly number[] = [1, 10, 100, 1000];
+const FRACTIONS: (string | undefined)[][] = POWERS.map((n) => new Array<string | undefined>(n)); // sized: stays a plain array
+
+function fraction(places: number, digits: number): string {
+  const kept = FRACTIONS[places]!;
+  let text = kept[digits];
+  if (text === undefined) {
+    const d = String(digits);
+    text = `.${ZEROS[places - d.length]!}${d}`;
+    kept[digits] = text;
+  }
+  return text;
 }
 
 /** Like fmt, but drops trailing zeros (for amounts as the user typed them). */
