@@ -837,6 +837,40 @@ export function round(value: D, places: number): number {
   return Object.is(n, -0) ? 0 : n;
 }
 
+/**
+ * round(a.div(b) × 10^shift, places) — the quotient rounded to 15 digits as `div` rounds it, × 10^shift (which
+ * only moves its exponent), rounded half-even to `places`: the very float round() gives — without making a
+ * decimal when a float estimate settles it. Operands whose exponents lie within ±22 read into floats
+ * correctly rounded (their coefficients are safe integers), so the estimate S of s = a ÷ b × 10^(shift+places)
+ * is within 4.5·10⁻¹⁶·|s| of s, and the 15-digit quotient within 5·10⁻¹⁵·|s|: when S lies further than
+ * 10⁻¹⁴·|S| from every half-way point, both round to the whole number nearest S. Otherwise (a near-tie, or
+ * a value that is not a plain finite decimal) the decimals decide. The report rounds every figure it
+ * divides by the weight, the volume or a total this way. Example: 1 ÷ 3 × 100 at one place → 33.3.
+ */
+export function roundDivided(a: D, b: D, shift: number, places: number): number {
+  if (a.x === null && b.x === null && b.c !== 0 && a.e >= -22 && a.e <= 22 && b.e >= -22 && b.e <= 22 && shift + places <= 22) {
+    const s = (a.toNumber() / b.toNumber()) * POW10[shift + places]!;
+    const k = Math.round(s);
+    const size = Math.abs(s);
+    if (size < 2 ** 52 && Math.abs(s - k) < 0.5 - size * 1e-14) return k === 0 ? 0 : k / POW10[places]!;
+  }
+  const q = a.div(b);
+  return round(shift === 0 ? q : q.times(POW10[shift]!), places);
+}
+
+/**
+ * Whether `product` is a × b exactly, with no rounding on the way: the coefficients' product is below 10¹⁵
+ * (so `times` kept every digit) and `product` holds that value. Then product ÷ b gives a back, digit for digit.
+ */
+export function isUnroundedProduct(product: D, a: D, b: D): boolean {
+  if (a.x !== null || b.x !== null || product.x !== null) return false;
+  const p = a.c * b.c;
+  if (!(p < 1e15 && p > -1e15)) return false;
+  // The product's coefficient has no trailing zeros; p may have some.
+  const shift = product.e - (a.e + b.e);
+  return shift >= 0 && shift <= 15 && product.c * POW10[shift]! === p;
+}
+
 /** Ratio a ÷ b, or null when b is zero (callers decide what an undefined ratio means). */
 export function ratio(a: D, b: D): D | null {
   return b.isZero() ? null : a.div(b);

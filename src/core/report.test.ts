@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import Decimal from 'decimal.js';
-import { D } from './decimal.ts';
-import { roundQuotient, toReport } from './report.ts';
+import { D, roundDivided } from './decimal.ts';
+import { toReport } from './report.ts';
 import { SPECIES_IDS } from './species.ts';
 import { DEFAULT_CATALOG, DEFAULT_POLICY } from '../defaults.ts';
 import { parseOrder } from './order.ts';
@@ -25,21 +25,21 @@ const decimalText = fc.record({
   negative: fc.boolean(),
 }).map(({ coefficient, exponent, negative }) => `${negative ? '-' : ''}${coefficient}e${exponent}`);
 
-describe('roundQuotient (against decimal.js)', () => {
+describe('roundDivided (against decimal.js)', () => {
   it('rounds the 15-digit quotient, not the exact one: 0.1234999999999999 ÷ 1 → 0.1235 → 0.124 at 3 places', () => {
-    expect(roundQuotient(new D('0.1234999999999999'), new D(1), 0, 3)).toBe(0.124);
+    expect(roundDivided(new D('0.1234999999999999'), new D(1), 0, 3)).toBe(0.124);
     expect(expected('0.1234999999999999', '1', 0, 3)).toBe(0.124);
   });
 
   it('breaks exact ties half-even: 1 ÷ 8 → 0.12, 3 ÷ 8 → 0.38; 1 ÷ 3 × 100 → 33.3', () => {
-    expect(roundQuotient(new D(1), new D(8), 0, 2)).toBe(0.12);
-    expect(roundQuotient(new D(3), new D(8), 0, 2)).toBe(0.38);
-    expect(roundQuotient(new D(1), new D(3), 2, 1)).toBe(33.3);
+    expect(roundDivided(new D(1), new D(8), 0, 2)).toBe(0.12);
+    expect(roundDivided(new D(3), new D(8), 0, 2)).toBe(0.38);
+    expect(roundDivided(new D(1), new D(3), 2, 1)).toBe(33.3);
   });
 
   it('gives decimal.js\'s figure for any operands, shift and places', () => {
     fc.assert(fc.property(decimalText, decimalText, fc.constantFrom(0, 2, 3), fc.integer({ min: 0, max: 4 }), (a, b, shift, places) => {
-      expect(roundQuotient(new D(a), new D(b), shift, places)).toBe(expected(a, b, shift, places));
+      expect(roundDivided(new D(a), new D(b), shift, places)).toBe(expected(a, b, shift, places));
     }), { numRuns: 3000 });
   });
 
@@ -55,7 +55,7 @@ describe('roundQuotient (against decimal.js)', () => {
       const Wide = Decimal.clone({ precision: 16, rounding: Decimal.ROUND_DOWN });
       const exact = new Wide(k).plus('0.5').div(new Wide(10).pow(places)).times(b);
       const a = exact.plus(exact.times(`${nudge}e-16`)).toString();
-      expect(roundQuotient(new D(a), new D(b), 0, places)).toBe(expected(a, String(b), 0, places));
+      expect(roundDivided(new D(a), new D(b), 0, places)).toBe(expected(a, String(b), 0, places));
     }), { numRuns: 3000 });
   });
 });

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { round, type D } from './decimal.ts';
+import { isUnroundedProduct, round, roundDivided, type D } from './decimal.ts';
 import { SPECIES, SPECIES_IDS, isCharged, speciesRecord, type SpeciesId } from './species.ts';
 import { perLitreOf, mmHgPerMOsmPerL, type Bag, type BagLine } from './compute/bag.ts';
 import { ruleFor, SEVERITIES, type Policy } from './policy.ts';
@@ -128,12 +128,12 @@ function speciesTotals(bag: Bag): SpeciesTotals {
       mEqPerLRow[k] = round(mmolToMEq(s, as(litre, 'mmol')), 2);
     } else {
       // mmol ÷ V × 1000, as perLitreOf makes it, rounded without the decimal when a float settles it.
-      const perL = V.isZero() ? 0 : roundQuotient(mmol, V, 3, 2);
+      const perL = V.isZero() ? 0 : roundDivided(mmol, V, 3, 2);
       perLRow[k] = perL;
       mEqPerLRow[k] = MEQ_RULE[k] === 1 ? perL : 0;
     }
     perDayRow[k] = round(mmol, 2);
-    perKgRow[k] = roundQuotient(mmol, w, 0, 3);
+    perKgRow[k] = roundDivided(mmol, w, 0, 3);
   }
   return { mmolPerL: speciesRecord(perLRow), mEqPerL: speciesRecord(mEqPerLRow), mmolPerDay: speciesRecord(perDayRow), mmolPerKgPerDay: speciesRecord(perKgRow) };
 }
@@ -141,42 +141,13 @@ function speciesTotals(bag: Bag): SpeciesTotals {
 // "mEq" → "mEq/kg": the per-kg unit of each base unit, written once.
 const PER_KG_UNIT: Readonly<Record<BaseUnit, string>> = { mL: 'mL/kg', g: 'g/kg', mEq: 'mEq/kg', mmol: 'mmol/kg' };
 
-/** Powers of ten as doubles, exact up to 10²² (a table: `10 ** n` is a library call). */
-const POW10: readonly number[] = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22];
-
-/**
- * round(a ÷ b × 10^shift, places) — the quotient rounded to 15 digits as `div` rounds it, × 10^shift (which
- * only moves its exponent), rounded half-even to `places`: the very float round() gives — without making a
- * decimal when a float estimate settles it. Operands whose exponents lie within ±22 read into floats
- * correctly rounded (their coefficients are safe integers), so the estimate S of s = a ÷ b × 10^(shift+places)
- * is within 4.5·10⁻¹⁶·|s| of s, and the 15-digit quotient within 5·10⁻¹⁵·|s|: when S lies further than
- * 10⁻¹⁴·|S| from every half-way point, both round to the whole number nearest S. Otherwise (a near-tie, or
- * a value that is not a plain finite decimal) the decimals decide. For every figure the report divides by
- * the weight, the volume or a total. Example: 1 ÷ 3 × 100 at one place → 33.3.
- */
-export function roundQuotient(a: D, b: D, shift: number, places: number): number {
-  if (a.x === null && b.x === null && b.c !== 0 && a.e >= -22 && a.e <= 22 && b.e >= -22 && b.e <= 22 && shift + places <= 22) {
-    const s = (a.toNumber() / b.toNumber()) * POW10[shift + places]!;
-    const k = Math.round(s);
-    const size = Math.abs(s);
-    if (size < 2 ** 52 && Math.abs(s - k) < 0.5 - size * 1e-14) return k === 0 ? 0 : k / POW10[places]!;
-  }
-  const q = a.div(b);
-  return round(shift === 0 ? q : q.times(POW10[shift]!), places);
-}
-
 /**
  * A per-kg line's amount per kg per day, rounded to 4 places, when it is the ordered amount itself: the
  * per-day amount is the ordered amount × weight, and when that product is exact (its coefficients'
  * product below 10¹⁵), ÷ weight gives the ordered amount back, digit for digit. Null otherwise.
  */
 function orderedPerKg(ordered: D, orderedRounded: number, perDay: D, w: D): number | null {
-  if (ordered.x !== null || w.x !== null || perDay.x !== null) return null;
-  const p = ordered.c * w.c;
-  if (!(p < 1e15 && p > -1e15)) return null;
-  // perDay equals p × 10^(ordered.e + w.e) (its coefficient has no trailing zeros: p may have some).
-  const shift = perDay.e - (ordered.e + w.e);
-  return shift >= 0 && shift <= 15 && perDay.c * POW10[shift]! === p ? orderedRounded : null;
+  return isUnroundedProduct(perDay, ordered, w) ? orderedRounded : null;
 }
 
 /**
@@ -198,7 +169,7 @@ function reportLine(l: BagLine, particle: boolean, total: D, w: D): Report['line
     const ordered = amount !== null && isAmount && perDayAmount === line.amount;
     perDay = { amount: ordered ? amount : round(perDayAmount, 4), unit: l.perDay.unit };
     const perKg = amount !== null && isAmount && !ordered ? orderedPerKg(line.amount, amount, perDayAmount, w) : null;
-    perKgPerDay = { amount: perKg ?? roundQuotient(perDayAmount, w, 0, 4), unit: PER_KG_UNIT[l.perDay.unit] };
+    perKgPerDay = { amount: perKg ?? roundDivided(perDayAmount, w, 0, 4), unit: PER_KG_UNIT[l.perDay.unit] };
   }
   return {
     index: line.index,
@@ -216,7 +187,7 @@ function reportLine(l: BagLine, particle: boolean, total: D, w: D): Report['line
     mOsm: particle ? particleMOsm : labelMOsm,
     particleMOsm,
     labelMOsm,
-    sharePercent: total.isZero() ? 0 : roundQuotient(particle ? l.particleMOsm : l.labelMOsm, total, 2, 1),
+    sharePercent: total.isZero() ? 0 : roundDivided(particle ? l.particleMOsm : l.labelMOsm, total, 2, 1),
     kcal: round(l.kcal, 1),
   };
 }
@@ -267,7 +238,7 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
   const mmHg = round(mmHgPerMOsmPerL(temp), 2);
   const temperatureC = round(temp, 1);
   const plasmaOsmolality = { min: round(plasma.min, 0), max: round(plasma.max, 0), unit: plasma.unit, source: plasma.source };
-  const timesPlasma = { low: roundQuotient(reported, plasma.max, 0, 2), high: roundQuotient(reported, plasma.min, 0, 2) };
+  const timesPlasma = { low: roundDivided(reported, plasma.max, 0, 2), high: roundDivided(reported, plasma.min, 0, 2) };
   const predictedOsmolality = predictedOsmolalityReport(bag);
   // One literal with or without the prediction (a key added to a finished literal goes to a separate store).
   const information: Report['information'] = predictedOsmolality
@@ -303,16 +274,16 @@ export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalo
       aminoAcidPercent: round(bag.percent.aminoAcids, 2),
       lipidPercent: round(bag.percent.lipid, 2),
       grams: { dextrose: round(bag.grams.dextrose, 2), aminoAcids: round(bag.grams.aminoAcids, 2), lipid: round(bag.grams.lipid, 2) },
-      gramsPerKg: { dextrose: roundQuotient(bag.grams.dextrose, w, 0, 3), aminoAcids: roundQuotient(bag.grams.aminoAcids, w, 0, 3), lipid: roundQuotient(bag.grams.lipid, w, 0, 3) },
+      gramsPerKg: { dextrose: roundDivided(bag.grams.dextrose, w, 0, 3), aminoAcids: roundDivided(bag.grams.aminoAcids, w, 0, 3), lipid: roundDivided(bag.grams.lipid, w, 0, 3) },
       kcal: {
         dextrose: round(bag.kcal.dextrose, 1), aminoAcids: round(bag.kcal.aminoAcids, 1), lipid: round(bag.kcal.lipid, 1),
         other: round(bag.kcal.other, 1), total: round(bag.kcal.total, 1), nonProtein: round(bag.kcal.nonProtein, 1),
       },
-      kcalPerKg: roundQuotient(bag.kcal.total, w, 0, 1),
+      kcalPerKg: roundDivided(bag.kcal.total, w, 0, 1),
       nitrogenG: round(bag.nitrogenG, 2),
       npcToN: bag.npcToN ? round(bag.npcToN, 0) : null,
       girMgPerKgPerMin: round(bag.girMgPerKgPerMin, 2),
-      fluidMlPerKg: roundQuotient(V, w, 0, 1),
+      fluidMlPerKg: roundDivided(V, w, 0, 1),
       aluminumMcgPerKgPerDay: round(bag.aluminumMcgPerKgPerDay, 2),
     },
     information,

@@ -47,12 +47,11 @@ const numberTexts = new WeakMap<D, string>();
 
 /** A number of the policy (a bound, a curve's temperature) as text, as the policy writes it: "0.125", "4". */
 export function numberText(x: D): string {
-  let text = numberTexts.get(x);
-  if (text === undefined) {
-    text = x.toString();
-    numberTexts.set(x, text);
-  }
-  return text;
+  return kept(numberTexts, x, writeNumber);
+}
+
+function writeNumber(x: D): string {
+  return x.toString();
 }
 
 function rangeTextOf(rule: Pick<Rule, 'min' | 'max' | 'unit'>): string {
@@ -67,12 +66,7 @@ const rangeTexts = new WeakMap<Pick<Rule, 'min' | 'max' | 'unit'>, string>();
 
 /** The rule's range as text, with the numbers as the policy writes them: "1–2 mmol/kg/day", "≤ 5 mg/kg/min". */
 export function rangeText(rule: Pick<Rule, 'min' | 'max' | 'unit'>): string {
-  let text = rangeTexts.get(rule);
-  if (text === undefined) {
-    text = rangeTextOf(rule);
-    rangeTexts.set(rule, text);
-  }
-  return text;
+  return kept(rangeTexts, rule, rangeTextOf);
 }
 
 /** The bound a finding reports: the one crossed, else the upper bound, else the lower one. */
