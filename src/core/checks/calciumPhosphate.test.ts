@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { DEFAULT_POLICY } from '../../defaults.ts';
 import { verdictOf } from '../findings.ts';
 import type { Route } from '../order.ts';
-import { calciumPhosphate, calciumPhosphateLevels } from './calciumPhosphate.ts';
+import { calciumPhosphate, calciumPhosphateLevels, calciumPhosphateProduct, calciumPhosphateScreens } from './calciumPhosphate.ts';
+import { bagOnRoute } from '../compute/bag.ts';
 import { AGES, bagOf, evaluate, one, pick, policyWith, type OrderSpec } from '../../../test/helpers/orders.ts';
 
 type Extra = OrderSpec['lines'];
@@ -179,6 +180,26 @@ describe('calcium-phosphate', () => {
       const f = one(calciumPhosphate(bag('child', 'central', '7.5', '2'), policy), 'calcium-phosphate', { screen: 'product' });
       expect(f.message).toContain('no amino acids: published curves do not cover it');
     });
+  });
+
+  it('is the product screen, then the screens that do not read the route, whatever bag or policy was checked before', () => {
+    const aa: Extra = [{ product: 'amino-acids-10', amount: 250, unit: 'mL' }, { product: 'lipid-20', amount: 250, unit: 'mL' }];
+    // Ca × P = 7.5 × 11 = 82.5: over the central screen (75) and within the peripheral one (100), Knight 1983.
+    const central = bag('child', 'central', '7.5', '11', aa);
+    const peripheral = bag('child', 'peripheral', '7.5', '11', aa);
+    // A policy reading central bags against the peripheral figure (Knight, Heer, Abdenour 1983: 100).
+    const lenient = policyWith((p) => {
+      p.rules['calcium-phosphate-product-central'].child = { max: 100, unit: 'mmol²/L²', severity: 'warn', source: 'test policy: Knight, Heer, Abdenour, JPEN 1983 peripheral figure applied centrally' };
+    });
+    const all = calciumPhosphate(central, DEFAULT_POLICY);
+    expect(all.map((f) => [f.screen, f.severity])).toEqual([['product', 'warn'], ['sum', 'info'], ['hidden-by-lipid', 'info']]);
+    expect(all).toEqual([...calciumPhosphateProduct(central, DEFAULT_POLICY), ...calciumPhosphateScreens(central, DEFAULT_POLICY)]);
+    // The same bag on the peripheral route: its product screen is the peripheral one, as for a bag computed peripheral.
+    const onPeripheral = calciumPhosphateProduct(bagOnRoute(central, 'peripheral'), DEFAULT_POLICY);
+    expect(onPeripheral).toEqual(calciumPhosphateProduct(peripheral, DEFAULT_POLICY));
+    expect(one(onPeripheral, 'calcium-phosphate').severity).toBe('info');
+    expect(one(calciumPhosphateProduct(central, lenient), 'calcium-phosphate').severity).toBe('info');
+    expect(calciumPhosphate(central, DEFAULT_POLICY)).toEqual(all);
   });
 
   it('its findings reach the report through evaluateOrder', () => {

@@ -2,7 +2,7 @@ import { ZERO, type D } from '../decimal.ts';
 import { fmt } from '../format.ts';
 import { ruleFor, type Policy, type Rule } from '../policy.ts';
 import type { Route } from '../order.ts';
-import { perLitreOf, type Bag } from '../compute/bag.ts';
+import { perLitreOf, type Bag, type BagLine } from '../compute/bag.ts';
 import { as, mmolToMEq } from '../units.ts';
 import type { Product } from '../catalog.ts';
 import { fromRule, NO_LINES, type Check, type Finding } from '../findings.ts';
@@ -84,45 +84,98 @@ function noCurveEndOf(product: Product): string {
 }
 
 /**
- * Calcium–phosphate screens (`calcium-phosphate`): the Knight 1983 product of calcium and
- * inorganic phosphate (mmol/L × mmol/L, limit per route), the sum screen (Ca mEq/L + P mmol/L),
- * organic phosphate reported separately, calcium chloride with inorganic phosphate, the
- * 3-in-1 note (a precipitate cannot be seen in an emulsion), and the amino-acid product's
- * solubility curve when the policy holds one. Each screen within its limit is reported as
- * information; limits, severities and sources come from the policy.
+ * What the calcium–phosphate screens of a bag read whatever its route: the levels and their texts, the
+ * lines the product, sum and curve screens name, and the curve screen. `on` holds what they were worked
+ * out from (see sharedOf).
  */
-export const calciumPhosphate: Check = (bag, policy) => {
-  if (bag.finalVolumeMl.isZero()) return [];
+interface Shared {
+  on: { lines: readonly BagLine[]; speciesMmol: Bag['speciesMmol']; finalVolumeMl: D; percent: Bag['percent']; patient: Bag['order']['patient']; policy: Policy };
+  lv: CalciumPhosphateLevels;
+  calciumText: string;
+  /** '' without inorganic phosphate. */
+  inorganicText: string;
+  /** '' without organic phosphate. */
+  organicText: string;
+  caAndP: number[];
+  curve: Finding | string | null;
+}
+
+// The last bag's shared part: the product screen and the others run one after the other on a bag, and the
+// solver's route re-check of a bag on another route (which shares the bag's figures) runs the product screen alone.
+let last: Shared | null = null;
+
+/**
+ * The shared part of the screens for a bag; null when no screen applies (no calcium, or no phosphate).
+ * Kept for the last bag, and given again for a bag made of the same figures (the same bag on another
+ * route): a bag's figures are never changed once computed, and the policy is an immutable value.
+ */
+function sharedOf(bag: Bag, policy: Policy): Shared | null {
+  const on = last?.on;
+  if (on && on.lines === bag.lines && on.speciesMmol === bag.speciesMmol && on.finalVolumeMl === bag.finalVolumeMl
+    && on.percent === bag.percent && on.patient === bag.order.patient && on.policy === policy) return last;
   const lv = calciumPhosphateLevels(bag);
   const pInorganic = lv.inorganicPhosphateMmolPerL;
   const pOrganic = lv.organicPhosphateMmolPerL;
-  if (!lv.calciumMmolPerL.gt(0) || !(pInorganic.gt(0) || pOrganic.gt(0))) return [];
-  const age = bag.order.patient.ageGroup;
-  const route = bag.order.route;
+  if (!lv.calciumMmolPerL.gt(0) || !(pInorganic.gt(0) || pOrganic.gt(0))) return null;
   const lines = inBagGroups(bag);
   // The calcium lines, then the inorganic phosphate ones: the lines the product, sum and curve screens name.
   const caAndP = pInorganic.gt(0) ? linesIn(lines, GROUP.Ca, GROUP.phosphate) : NO_LINES;
-  const curve = curveScreen(bag, policy, lv, lines, caAndP);
-  const hasOrganic = pOrganic.gt(0);
-  const organicText = hasOrganic ? fmt(pOrganic, 2) : '';
-  const calciumText = fmt(lv.calciumMmolPerL, 2);
-  const organicNote = hasOrganic ? ` Organic phosphate (glycerophosphate) ${organicText} mmol/L is not counted in the inorganic term.` : '';
+  last = {
+    on: { lines: bag.lines, speciesMmol: bag.speciesMmol, finalVolumeMl: bag.finalVolumeMl, percent: bag.percent, patient: bag.order.patient, policy },
+    lv,
+    calciumText: fmt(lv.calciumMmolPerL, 2),
+    inorganicText: pInorganic.gt(0) ? fmt(pInorganic, 2) : '',
+    organicText: pOrganic.gt(0) ? fmt(pOrganic, 2) : '',
+    caAndP,
+    curve: curveScreen(bag, policy, lv, lines, caAndP),
+  };
+  return last;
+}
+
+/**
+ * The calcium–phosphate product screen (`calcium-phosphate`, screen `product`): the Knight 1983 product of
+ * calcium and inorganic phosphate (mmol/L × mmol/L) against the route's limit. The one screen that reads
+ * the route; calciumPhosphateScreens has the others, whose findings follow this one.
+ */
+export const calciumPhosphateProduct: Check = (bag, policy) => {
+  if (bag.finalVolumeMl.isZero()) return [];
+  const s = sharedOf(bag, policy);
+  if (!s || s.inorganicText === '') return [];
+  const route = bag.order.route;
+  const productRule = ruleFor(policy, route === 'central' ? 'calcium-phosphate-product-central' : 'calcium-phosphate-product-peripheral', bag.order.patient.ageGroup);
+  if (!productRule?.max) return [];
+  const { lv, curve } = s;
+  const product = lv.calciumMmolPerL.times(lv.inorganicPhosphateMmolPerL);
+  const over = outside(product, productRule) === 'max';
+  const words = kept(productWords, productRule, route === 'central' ? centralProductWords : peripheralProductWords);
+  const organicNote = s.organicText === '' ? '' : ` Organic phosphate (glycerophosphate) ${s.organicText} mmol/L is not counted in the inorganic term.`;
+  return [fromRule('calcium-phosphate', productRule, {
+    value: product, limit: productRule.max, decimals: 1, screen: 'product',
+    message: `Ca × P = ${s.calciumText} mmol/L calcium × ${s.inorganicText} mmol/L inorganic phosphate = ${fmt(product, 1)}${over ? words.over : words.within}${organicNote}${typeof curve === 'string' ? curve : SCREENS_ONLY_DEFER}`,
+    lines: s.caAndP,
+    within: !over,
+  })];
+};
+
+/**
+ * The calcium–phosphate screens that do not read the route (`calcium-phosphate`): the sum screen
+ * (Ca mEq/L + P mmol/L), organic phosphate reported separately, calcium chloride with inorganic
+ * phosphate, the amino-acid product's solubility curve when the policy holds one, and the 3-in-1 note
+ * (a precipitate cannot be seen in an emulsion). Each screen within its limit is reported as
+ * information; limits, severities and sources come from the policy.
+ */
+export const calciumPhosphateScreens: Check = (bag, policy) => {
+  if (bag.finalVolumeMl.isZero()) return [];
+  const s = sharedOf(bag, policy);
+  if (!s) return [];
+  const { lv, inorganicText, organicText } = s;
+  const pInorganic = lv.inorganicPhosphateMmolPerL;
+  const pOrganic = lv.organicPhosphateMmolPerL;
+  const age = bag.order.patient.ageGroup;
+  const lines = inBagGroups(bag);
   const out: Finding[] = [];
 
-  if (pInorganic.gt(0)) {
-    const inorganicText = fmt(pInorganic, 2);
-    const productRule = ruleFor(policy, route === 'central' ? 'calcium-phosphate-product-central' : 'calcium-phosphate-product-peripheral', age);
-    if (productRule?.max) {
-      const product = lv.calciumMmolPerL.times(pInorganic);
-      const over = outside(product, productRule) === 'max';
-      const words = kept(productWords, productRule, route === 'central' ? centralProductWords : peripheralProductWords);
-      out.push(fromRule('calcium-phosphate', productRule, {
-        value: product, limit: productRule.max, decimals: 1, screen: 'product',
-        message: `Ca × P = ${calciumText} mmol/L calcium × ${inorganicText} mmol/L inorganic phosphate = ${fmt(product, 1)}${over ? words.over : words.within}${organicNote}${typeof curve === 'string' ? curve : SCREENS_ONLY_DEFER}`,
-        lines: caAndP,
-        within: !over,
-      }));
-    }
+  if (inorganicText !== '') {
     const sumRule = ruleFor(policy, 'calcium-phosphate-sum', age);
     if (sumRule?.max) {
       const total = lv.calciumMEqPerL.plus(pInorganic);
@@ -131,7 +184,7 @@ export const calciumPhosphate: Check = (bag, policy) => {
       out.push(fromRule('calcium-phosphate', sumRule, {
         value: total, limit: sumRule.max, decimals: 1, screen: 'sum',
         message: `Ca + P = ${fmt(lv.calciumMEqPerL, 2)} mEq/L calcium + ${inorganicText} mmol/L inorganic phosphate = ${fmt(total, 1)}${over ? words.over : words.within}`,
-        lines: caAndP,
+        lines: s.caAndP,
         within: !over,
       }));
     }
@@ -145,22 +198,22 @@ export const calciumPhosphate: Check = (bag, policy) => {
     }
   }
 
-  if (hasOrganic) {
+  if (organicText !== '') {
     const organicRule = ruleFor(policy, 'calcium-phosphate-organic', age);
     if (organicRule) {
       const over = outside(pOrganic, organicRule) === 'max';
-      const inorganicText = pInorganic.gt(0) ? '' : ' With no inorganic phosphate, the inorganic screens are not triggered.';
-      const limitText = organicRule.max ? ` Tested up to ${numberText(organicRule.max)} mmol/L${over ? ': this bag is beyond what was tested' : ''} (calcium here ${calciumText} mmol/L).` : '';
+      const noInorganic = inorganicText !== '' ? '' : ' With no inorganic phosphate, the inorganic screens are not triggered.';
+      const limitText = organicRule.max ? ` Tested up to ${numberText(organicRule.max)} mmol/L${over ? ': this bag is beyond what was tested' : ''} (calcium here ${s.calciumText} mmol/L).` : '';
       out.push(fromRule('calcium-phosphate', organicRule, {
         value: pOrganic, limit: organicRule.max, decimals: 2, screen: 'organic-phosphate',
-        message: `Organic phosphate (glycerophosphate) ${organicText} mmol/L is reported separately: organic phosphate salts stay in solution with calcium far above inorganic ones.${limitText}${inorganicText} ${DEFER}`,
+        message: `Organic phosphate (glycerophosphate) ${organicText} mmol/L is reported separately: organic phosphate salts stay in solution with calcium far above inorganic ones.${limitText}${noInorganic} ${DEFER}`,
         lines: linesIn(lines, GROUP.glycerophosphate, GROUP.Ca),
         within: !over,
       }));
     }
   }
 
-  if (curve !== null && typeof curve !== 'string') out.push(curve);
+  if (s.curve !== null && typeof s.curve !== 'string') out.push(s.curve);
 
   const lipidRule = ruleFor(policy, 'calcium-phosphate-in-lipid', age);
   if (lipidRule && bag.grams.lipid.gt(0)) {
@@ -171,6 +224,18 @@ export const calciumPhosphate: Check = (bag, policy) => {
     }));
   }
   return out;
+};
+
+/**
+ * Calcium–phosphate screens (`calcium-phosphate`), all of them in the order a report lists them: the
+ * product screen (calciumPhosphateProduct), then the others (calciumPhosphateScreens).
+ */
+export const calciumPhosphate: Check = (bag, policy) => {
+  const product = calciumPhosphateProduct(bag, policy);
+  const rest = calciumPhosphateScreens(bag, policy);
+  if (product.length === 0) return rest;
+  for (const f of rest) product.push(f);
+  return product;
 };
 
 /**

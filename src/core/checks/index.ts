@@ -4,7 +4,7 @@ import { osmolarityPeripheral } from './osmolarityPeripheral.ts';
 import { dextrosePeripheral } from './dextrosePeripheral.ts';
 import { missingLabelOsmolarity } from './missingLabelOsmolarity.ts';
 import { potassiumPeripheral } from './potassiumPeripheral.ts';
-import { calciumPhosphate } from './calciumPhosphate.ts';
+import { calciumPhosphateProduct, calciumPhosphateScreens } from './calciumPhosphate.ts';
 import { tnaStability } from './tnaStability.ts';
 import { gir } from './gir.ts';
 import { doseRange } from './doseRange.ts';
@@ -19,7 +19,8 @@ export const CHECKS: readonly Check[] = [
   dextrosePeripheral,
   missingLabelOsmolarity,
   potassiumPeripheral,
-  calciumPhosphate,
+  calciumPhosphateProduct,
+  calciumPhosphateScreens,
   tnaStability,
   gir,
   doseRange,
@@ -30,4 +31,4 @@ export const CHECKS: readonly Check[] = [
  * The checks that read the order's route. The others depend on the bag alone, which the route does not
  * change, so the solver's route re-check keeps their findings (a test holds every other check to that).
  */
-export const ROUTE_CHECKS: ReadonlySet<Check> = new Set([osmolarityPeripheral, dextrosePeripheral, potassiumPeripheral, calciumPhosphate]);
+export const ROUTE_CHECKS: ReadonlySet<Check> = new Set([osmolarityPeripheral, dextrosePeripheral, potassiumPeripheral, calciumPhosphateProduct]);
