@@ -1,4 +1,4 @@
-import { ZERO } from '../decimal.ts';
+import { roundDivided, ZERO } from '../decimal.ts';
 import { fmt } from '../format.ts';
 import { ruleFor, type Rule } from '../policy.ts';
 import type { Bag, BagLine } from '../compute/bag.ts';
@@ -75,7 +75,8 @@ export const aluminum: Check = (bag, policy) => {
   const total = bag.aluminumMcg;
   let topText = '';
   for (const l of top) {
-    topText += `${topText === '' ? ' Largest contributors: ' : '; '}${l.product.name} ${fmt(l.aluminumMcg, 1)} µg (${fmt(l.aluminumMcg.div(total).times(100), 0)}%)`;
+    // The share, as fmt(aluminum ÷ total × 100, 0) writes it, without the decimals made for it.
+    topText += `${topText === '' ? ' Largest contributors: ' : '; '}${l.product.name} ${fmt(l.aluminumMcg, 1)} µg (${String(roundDivided(l.aluminumMcg, total, 2, 0))}%)`;
   }
   if (topText !== '') topText += '.';
   const missingText = missing === '' ? '' : ` No aluminum value in the catalog for: ${missing} — the figure is a lower bound.`;

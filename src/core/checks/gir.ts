@@ -1,14 +1,10 @@
 import { fmt, fmtTrim } from '../format.ts';
 import { girRuleFor } from '../policy.ts';
-import type { Bag } from '../compute/bag.ts';
 import { fromRule, type Check } from '../findings.ts';
 import { outside, rangeText, reportedLimit, AGE_LABEL, DEFER, numberText } from './limits.ts';
+import { GROUP, inBagGroups, linesIn } from './lineGroups.ts';
 
-function dextroseLines(bag: Bag): number[] {
-  const out: number[] = [];
-  for (const l of bag.lines) if (l.inBag && l.product.role === 'dextrose') out.push(l.line.index);
-  return out;
-}
+const FIELDS = ['hours'];
 
 /**
  * Glucose infusion rate (`gir`) against the age group's range, or for children the range of
@@ -32,8 +28,8 @@ export const gir: Check = (bag, policy) => {
       : `GIR ${fmt(value, 2)} mg/kg/min is within the range for ${who}, ${range}.`;
   return [fromRule('gir', rule, {
     value, limit: reportedLimit(rule, crossed), decimals: 2, message,
-    lines: dextroseLines(bag),
-    fields: ['hours'],
+    lines: linesIn(inBagGroups(bag), GROUP.dextrose),
+    fields: FIELDS,
     within: crossed === null,
   })];
 };

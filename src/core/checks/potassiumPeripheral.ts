@@ -1,13 +1,19 @@
+import { ZERO } from '../decimal.ts';
 import { fmt } from '../format.ts';
 import { ruleFor } from '../policy.ts';
-import { perLitreOf, type Bag } from '../compute/bag.ts';
+import type { Rule } from '../policy.ts';
+import { perLitreOf } from '../compute/bag.ts';
 import { fromRule, type Check } from '../findings.ts';
-import { outside, AGE_LABEL, DEFER, numberText } from './limits.ts';
+import { kept, outside, AGE_LABEL, DEFER, numberText } from './limits.ts';
+import { GROUP, inBagGroups, linesIn } from './lineGroups.ts';
 
-function potassiumLines(bag: Bag): number[] {
-  const out: number[] = [];
-  for (const l of bag.lines) if (l.inBag && l.stock.holds.has('K')) out.push(l.line.index);
-  return out;
+const FIELDS = ['route', 'volumeMl'];
+
+// Each rule's words after the figure when within it, made once.
+const withinWords = new WeakMap<Rule, string>();
+
+function withinWordsOf(rule: Rule): string {
+  return ` mmol/L is within the peripheral limit of ${numberText(rule.max ?? ZERO)} mmol/L.`;
 }
 
 /**
@@ -25,9 +31,10 @@ export const potassiumPeripheral: Check = (bag, policy) => {
     value: k, limit: rule.max, decimals: 1,
     message: over
       ? `Potassium ${fmt(k, 1)} mmol/L is over the peripheral limit of ${numberText(rule.max)} mmol/L for ${AGE_LABEL[bag.order.patient.ageGroup]}: concentrated potassium irritates a peripheral vein. Give it centrally, raise the volume or lower the potassium. ${DEFER}`
-      : `Potassium ${fmt(k, 1)} mmol/L is within the peripheral limit of ${numberText(rule.max)} mmol/L.`,
-    lines: potassiumLines(bag),
-    fields: ['route', 'volumeMl'],
+      : `Potassium ${fmt(k, 1)}${kept(withinWords, rule, withinWordsOf)}`,
+    // The lines whose stock holds potassium (the solver's route re-check reads the lines its bag was checked for).
+    lines: linesIn(inBagGroups(bag), GROUP.K),
+    fields: FIELDS,
     within: !over,
   })];
 };
