@@ -12,7 +12,7 @@ import { DEFAULT_CATALOG, DEFAULT_POLICY } from '../../src/defaults.ts';
 import { checkOrder } from '../../src/core/evaluate.ts';
 import { computeBag, type Bag } from '../../src/core/compute/bag.ts';
 import { parseOrder } from '../../src/core/order.ts';
-import { batch, ndjsonChunk, ndjsonPool, rng, type GenOrder } from './generate.ts';
+import { batch, ndjsonChunk, ndjsonPool, rng } from './generate.ts';
 import { DecimalJs, exactOsmolarity, floatOsmolarity, prepare, toDecimalJs, toFloat } from './floatReference.ts';
 import { D } from '../../src/core/decimal.ts';
 import { SPECIES_IDS } from '../../src/core/species.ts';
