@@ -18,15 +18,20 @@ export const LINE_UNITS = ['mL', 'g', 'mEq', 'mmol', 'mL/kg', 'g/kg', 'mEq/kg', 
 export type LineUnit = (typeof LINE_UNITS)[number];
 export type BaseUnit = 'mL' | 'g' | 'mEq' | 'mmol';
 
-const BASE_UNIT: Readonly<Record<LineUnit, BaseUnit>> = {
-  mL: 'mL', g: 'g', mEq: 'mEq', mmol: 'mmol', 'mL/kg': 'mL', 'g/kg': 'g', 'mEq/kg': 'mEq', 'mmol/kg': 'mmol',
-};
+// Written as switches, not a lookup table: a record keyed by these texts is read through a slow generic
+// keyed load, and every line of every bag asks both.
 /** The unit without its `/kg`: "mEq/kg" → "mEq". */
 export function baseUnit(unit: LineUnit): BaseUnit {
-  return BASE_UNIT[unit];
+  switch (unit) {
+    case 'mL/kg': return 'mL';
+    case 'g/kg': return 'g';
+    case 'mEq/kg': return 'mEq';
+    case 'mmol/kg': return 'mmol';
+    default: return unit;
+  }
 }
 export function isPerKg(unit: LineUnit): boolean {
-  return BASE_UNIT[unit] !== unit;
+  return unit === 'mL/kg' || unit === 'g/kg' || unit === 'mEq/kg' || unit === 'mmol/kg';
 }
 
 /**

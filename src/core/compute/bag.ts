@@ -118,11 +118,26 @@ function lineAluminumMcg(product: Product, stock: StockFigures, volumeMl: D): D 
 }
 
 /**
+ * The computed line of `like` for the same order line, when `like` was computed at the same weight: a
+ * line's figures depend on nothing else (the fill's do, and it is never taken). `at` is where it
+ * should sit when the lines come in the same order.
+ */
+function knownLine(like: readonly BagLine[], line: OrderLine, at: number): BagLine | null {
+  const expected = like[at];
+  if (expected && expected.line === line) return expected;
+  for (let i = 0; i < like.length; i++) if (like[i]!.line === line) return like[i]!;
+  return null;
+}
+
+/**
  * Turn a validated order into its bag: each line's stock volume, the fill, every species, both
  * osmolarities, concentrations, energy, nitrogen, GIR. Pure; full decimal precision.
+ * `like`: a bag of an order this one was made from (the solver's proposals change the volume or one
+ * line); its lines that this order holds unchanged, at the same weight, are taken as they are.
  */
-export function computeBag(order: Order, policy: Policy): Bag {
+export function computeBag(order: Order, policy: Policy, like?: Bag): Bag {
   const weight = order.patient.weightKg;
+  const known = like && like.order.patient.weightKg.eq(weight) ? like.lines : null;
   // The lines in order; the fill line's volume needs the sum of the others, so it is put in its place after.
   const lines: BagLine[] = [];
   let fillLine: OrderLine | null = null;
@@ -134,8 +149,11 @@ export function computeBag(order: Order, policy: Policy): Bag {
       fillAt = lines.length;
       continue;
     }
-    const perDay = perDayAmount(line, weight);
-    const bagLine = makeLine(line, lineVolumeMl(line, weight, perDay), perDay);
+    let bagLine = known ? knownLine(known, line, lines.length + (fillLine ? 1 : 0)) : null;
+    if (!bagLine) {
+      const perDay = perDayAmount(line, weight);
+      bagLine = makeLine(line, lineVolumeMl(line, weight, perDay), perDay);
+    }
     addedVolumeMl = addedVolumeMl.plus(bagLine.volumeMl);
     lines.push(bagLine);
   }

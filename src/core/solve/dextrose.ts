@@ -60,17 +60,17 @@ export function dextroseSuggestion(current: Checked, policy: Policy, limit: D, e
   const withAmount = (amount: D): Order => ({ ...order, lines: order.lines.map((l) => (l.index === line.index ? { ...line, amount } : l)) });
   const x0 = gramsFor(line, line.amount, w);
   if (!x0.gt(0)) return unavailable(`The dextrose line is already at zero: lower the amino acids or electrolytes, raise the volume, or use a central line.`);
-  const found = crossings(policy, limit, x0, bag, ZERO, computeBag(withAmount(ZERO), policy));
+  const found = crossings(policy, limit, x0, bag, ZERO, computeBag(withAmount(ZERO), policy, bag));
   if (!found || found.some((c) => c.falling)) return unavailable('Lowering dextrose does not lower this bag\'s osmolarity.');
   const exact = D.min(...found.map((c) => c.x));
   if (!exact.gt(0)) return unavailable(`Even with no dextrose this bag stays over ${limit.toString()} mOsm/L: lower the amino acids or electrolytes, raise the volume, or use a central line.`);
   const step = policy.solver.dextroseStep[line.unit as keyof Policy['solver']['dextroseStep']] ?? null;
   if (!step) return unavailable(`The policy has no dextrose step for a line in ${line.unit}.`);
   let amount = floorToStep(amountFor(line, exact, w), step);
-  let proposed = amount.gt(0) ? computeBag(withAmount(amount), policy) : null;
+  let proposed = amount.gt(0) ? computeBag(withAmount(amount), policy, bag) : null;
   for (let i = 0; i < GUARD_STEPS && proposed && proposed.osmolarity.reported.gt(limit); i++) {
     amount = amount.minus(step);
-    proposed = amount.gt(0) ? computeBag(withAmount(amount), policy) : null;
+    proposed = amount.gt(0) ? computeBag(withAmount(amount), policy, bag) : null;
   }
   if (!proposed) return unavailable(`Rounded down to ${step.toString()} ${line.unit}, no dextrose is left: lower other lines, raise the volume or use a central line.`);
   const next = evaluate(proposed);

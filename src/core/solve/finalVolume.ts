@@ -33,17 +33,17 @@ export function finalVolumeSuggestion(current: Checked, catalog: Catalog, policy
   const x0 = bag.finalVolumeMl;
   const x1 = x0.plus(1000);
   // With a fill line and the ordered volume as the final one, the bag at x0 is the evaluated bag.
-  const bag0 = fill && order.volumeMl?.eq(x0) ? bag : computeBag(withVolume(x0), policy);
-  const found = crossings(policy, limit, x0, bag0, x1, computeBag(withVolume(x1), policy));
+  const bag0 = fill && order.volumeMl?.eq(x0) ? bag : computeBag(withVolume(x0), policy, bag);
+  const found = crossings(policy, limit, x0, bag0, x1, computeBag(withVolume(x1), policy, bag));
   if (!found || found.some((c) => !c.falling)) {
     return { kind: 'final-volume', status: 'unavailable', message: `More volume cannot bring this bag under ${limit.toString()} mOsm/L: the fill stock (${fillProduct.name}) is itself at or above the limit.`, notes: [] };
   }
   const step = volumeStepFor(policy, order.patient.ageGroup);
   let volume = ceilToStep(D.max(...found.map((c) => c.x)), step);
-  let proposed = computeBag(withVolume(volume), policy);
+  let proposed = computeBag(withVolume(volume), policy, bag);
   for (let i = 0; i < GUARD_STEPS && proposed.osmolarity.reported.gt(limit); i++) {
     volume = volume.plus(step);
-    proposed = computeBag(withVolume(volume), policy);
+    proposed = computeBag(withVolume(volume), policy, bag);
   }
   const next = evaluate(proposed);
   const notes: string[] = [];
