@@ -5,7 +5,6 @@ import { toReport, type Report } from './report.ts';
 import type { Catalog } from './catalog.ts';
 import type { Policy } from './policy.ts';
 import type { Suggestion } from './solve/index.ts';
-import { suggestionReport } from './solve/report.ts';
 
 /** Everything the engine knows about one bag. */
 export interface Evaluation {
@@ -46,9 +45,7 @@ class LazyEvaluation implements Evaluation {
 
   get report(): Report {
     if (this.#report === null) {
-      const report = toReport(this.bag, this.findings, this.verdict, this.#catalog, this.#policy);
-      if (this.suggestions.length > 0) report.suggestions = this.suggestions.map(suggestionReport);
-      this.#report = report;
+      this.#report = toReport(this.bag, this.findings, this.verdict, this.#catalog, this.#policy, this.suggestions);
     }
     return this.#report;
   }

@@ -8,7 +8,9 @@ import { DEFAULT_CATALOG, DEFAULT_POLICY } from '../defaults.ts';
 import { parseOrder } from './order.ts';
 import { evaluateOrder } from './evaluate.ts';
 import { batch } from '../../test/bench/generate.ts';
-import { evaluate } from '../../test/helpers/orders.ts';
+import { evaluate, policyWith } from '../../test/helpers/orders.ts';
+import { checkOrder } from './evaluate.ts';
+import { DEMO_ORDERS } from '../defaults.ts';
 
 // decimal.js as the reference: quotients rounded to 15 significant digits, half-even (the engine's rule).
 const Dec = Decimal.clone({ precision: 15, rounding: Decimal.ROUND_HALF_EVEN });
@@ -105,5 +107,40 @@ describe('report figures (against decimal.js on generated orders)', () => {
     expect(e.report.lines[0]?.amount).toBe(2.7979);
     expect(e.report.lines[0]?.perKgPerDay?.amount).toBe(expected(new Dec('2.79785000000001').times('3.729064').toString(), '3.729064', 0, 4));
     expect(e.report.lines[0]?.perKgPerDay?.amount).toBe(2.7978);
+  });
+});
+
+describe('report shape', () => {
+  // The adult peripheral demo with dextrose 250 g: over the 900 mOsm/L peripheral limit (ASPEN 2014), so the
+  // solver proposes changes.
+  const file = structuredClone(DEMO_ORDERS.find((d) => d.key === 'adult-peripheral')?.file) as { lines: { amount?: unknown }[] };
+  file.lines[1]!.amount = 250;
+
+  it('writes suggestions last, and leaves the key out (not undefined) when there are none', () => {
+    const full = checkOrder(file, DEFAULT_CATALOG, DEFAULT_POLICY);
+    const quick = checkOrder(file, DEFAULT_CATALOG, DEFAULT_POLICY, { suggestions: false });
+    if (!full.ok || !quick.ok) throw new Error('demo did not check');
+    expect(full.value.suggestions.length).toBeGreaterThan(0);
+    expect(Object.keys(full.value.report).slice(-2)).toEqual(['verdict', 'suggestions']);
+    expect(Object.keys(quick.value.report).at(-1)).toBe('verdict');
+    expect('suggestions' in quick.value.report).toBe(false);
+    const e = full.value;
+    expect(toReport(e.bag, e.findings, e.verdict, DEFAULT_CATALOG, DEFAULT_POLICY, e.suggestions)).toStrictEqual(e.report);
+  });
+
+  it('shows the peripheral limit of the patient\'s age group under each policy', () => {
+    // Adults 900 mOsm/L (ASPEN 2014, Boullata et al.); neonates 1000 mOsm/L (Dugan 2014: more infiltration above
+    // it); children none. The shipped policy has 900 mOsm/L for every age group (ASPEN 2014).
+    const policy = policyWith((json) => {
+      json.rules['osmolarity-peripheral'] = {
+        adult: { max: 900, unit: 'mOsm/L', severity: 'block', source: 'ASPEN 2014 (Boullata et al.)' },
+        'term-neonate': { max: 1000, unit: 'mOsm/L', severity: 'block', source: 'Dugan 2014' },
+      };
+    });
+    const spec = { weightKg: '3', volumeMl: 100, lines: [{ product: 'dextrose-50', amount: '10', unit: 'g' as const }, { product: 'sterile-water', fill: true }] };
+    expect(evaluate({ ...spec, age: 'adult' }, policy).report.osmolarity.peripheralLimit).toBe(900);
+    expect(evaluate({ ...spec, age: 'term-neonate' }, policy).report.osmolarity.peripheralLimit).toBe(1000);
+    expect(evaluate({ ...spec, age: 'child' }, policy).report.osmolarity.peripheralLimit).toBeNull();
+    expect(evaluate({ ...spec, age: 'child' }).report.osmolarity.peripheralLimit).toBe(900);
   });
 });

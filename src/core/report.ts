@@ -5,10 +5,12 @@ import { perLitreOf, mmHgPerMOsmPerL, type Bag, type BagLine } from './compute/b
 import { ruleFor, SEVERITIES, type Policy } from './policy.ts';
 import type { Catalog } from './catalog.ts';
 import type { Finding, Verdict } from './findings.ts';
-import { AGE_GROUPS, ROUTES, type BaseUnit } from './order.ts';
+import { AGE_GROUPS, ROUTES, type AgeGroup, type BaseUnit } from './order.ts';
 import { as, mmolToMEq } from './units.ts';
 import { predictedOsmolalityReport, predictedOsmolalityReportSchema } from './compute/osmolality.ts';
-import { suggestionReportSchema } from './solve/report.ts';
+import { assertNever } from './problems.ts';
+import { suggestionReport, suggestionReportSchema } from './solve/report.ts';
+import type { Suggestion } from './solve/suggestion.ts';
 
 const num = z.number().refine(Number.isFinite, 'must be a finite number');
 const speciesNumbers = z.record(z.enum(SPECIES_IDS), num);
@@ -107,14 +109,22 @@ const mEqPerLRow: number[] = SPECIES_IDS.map(() => 0);
 const perDayRow: number[] = SPECIES_IDS.map(() => 0);
 const perKgRow: number[] = SPECIES_IDS.map(() => 0);
 
+/**
+ * The bag's mmol of each species, in SPECIES_IDS order, read by name: every record has one shape, so each
+ * read is a load at a fixed place (a loop reading `speciesMmol[s]` by a changing key looks each one up).
+ */
+function mmolInOrder(m: Bag['speciesMmol']): readonly D[] {
+  return [m.Na, m.K, m.Ca, m.Mg, m.Cl, m.acetate, m.gluconate, m.lactate, m.sulfate, m.phosphate, m.glycerophosphate, m.glycerol];
+}
+
 /** Every species' totals, each rounded once; a species the bag does not hold is 0 throughout. */
 function speciesTotals(bag: Bag): SpeciesTotals {
   const n = SPECIES_IDS.length;
   const V = bag.finalVolumeMl;
   const w = bag.order.patient.weightKg;
+  const mmolRow = mmolInOrder(bag.speciesMmol);
   for (let k = 0; k < n; k++) {
-    const s = SPECIES_IDS[k]!;
-    const mmol = bag.speciesMmol[s];
+    const mmol = mmolRow[k]!;
     if (mmol.isZero()) {
       perLRow[k] = 0;
       mEqPerLRow[k] = 0;
@@ -125,7 +135,7 @@ function speciesTotals(bag: Bag): SpeciesTotals {
     if (MEQ_RULE[k] === 2) {
       const litre = perLitreOf(bag, mmol);
       perLRow[k] = round(litre, 2);
-      mEqPerLRow[k] = round(mmolToMEq(s, as(litre, 'mmol')), 2);
+      mEqPerLRow[k] = round(mmolToMEq(SPECIES_IDS[k]!, as(litre, 'mmol')), 2);
     } else {
       // mmol ÷ V × 1000, as perLitreOf makes it, rounded without the decimal when a float settles it.
       const perL = V.isZero() ? 0 : roundDivided(mmol, V, 3, 2);
@@ -138,8 +148,16 @@ function speciesTotals(bag: Bag): SpeciesTotals {
   return { mmolPerL: speciesRecord(perLRow), mEqPerL: speciesRecord(mEqPerLRow), mmolPerDay: speciesRecord(perDayRow), mmolPerKgPerDay: speciesRecord(perKgRow) };
 }
 
-// "mEq" → "mEq/kg": the per-kg unit of each base unit, written once.
-const PER_KG_UNIT: Readonly<Record<BaseUnit, string>> = { mL: 'mL/kg', g: 'g/kg', mEq: 'mEq/kg', mmol: 'mmol/kg' };
+/** The per-kg unit of a base unit ("mEq" → "mEq/kg"), each written once. */
+function perKgUnit(unit: BaseUnit): string {
+  switch (unit) {
+    case 'mL': return 'mL/kg';
+    case 'g': return 'g/kg';
+    case 'mEq': return 'mEq/kg';
+    case 'mmol': return 'mmol/kg';
+    default: return assertNever(unit);
+  }
+}
 
 /**
  * A per-kg line's amount per kg per day, rounded to 4 places, when it is the ordered amount itself: the
@@ -150,17 +168,23 @@ function orderedPerKg(ordered: D, orderedRounded: number, perDay: D, w: D): numb
   return isUnroundedProduct(perDay, ordered, w) ? orderedRounded : null;
 }
 
+/** Whether two decimals hold the same coefficient and exponent (the same value, without a comparison). */
+function sameDigits(a: D, b: D): boolean {
+  return a === b || (a.x === null && b.x === null && a.c === b.c && a.e === b.e);
+}
+
 /**
  * One line of the report; a figure shared by two fields is rounded once. `particle`: the bag reports the
- * particle osmolarity; `total`: the bag's mOsm under its method (a line's share is its part of it).
+ * particle osmolarity; `total`: the bag's mOsm under its method (a line's share is its part of it), null
+ * when that is zero.
  */
-function reportLine(l: BagLine, particle: boolean, total: D, w: D): Report['lines'][number] {
+function reportLine(l: BagLine, particle: boolean, total: D | null, w: D): Report['lines'][number] {
   const line = l.line;
   const isAmount = line.kind === 'amount';
   const amount = isAmount ? round(line.amount, 4) : null;
   const particleMOsm = round(l.particleMOsm, 2);
-  // A stock without a label value counts its particles in the label sum: the same decimal.
-  const labelMOsm = l.labelMOsm === l.particleMOsm ? particleMOsm : round(l.labelMOsm, 2);
+  // A stock whose label value is its particles' (or that has none) gives the same digits twice.
+  const labelMOsm = sameDigits(l.labelMOsm, l.particleMOsm) ? particleMOsm : round(l.labelMOsm, 2);
   let perDay: Report['lines'][number]['perDay'] = null;
   let perKgPerDay: Report['lines'][number]['perKgPerDay'] = null;
   if (l.perDay) {
@@ -169,7 +193,7 @@ function reportLine(l: BagLine, particle: boolean, total: D, w: D): Report['line
     const ordered = amount !== null && isAmount && perDayAmount === line.amount;
     perDay = { amount: ordered ? amount : round(perDayAmount, 4), unit: l.perDay.unit };
     const perKg = amount !== null && isAmount && !ordered ? orderedPerKg(line.amount, amount, perDayAmount, w) : null;
-    perKgPerDay = { amount: perKg ?? roundDivided(perDayAmount, w, 0, 4), unit: PER_KG_UNIT[l.perDay.unit] };
+    perKgPerDay = { amount: perKg ?? roundDivided(perDayAmount, w, 0, 4), unit: perKgUnit(l.perDay.unit) };
   }
   return {
     index: line.index,
@@ -187,7 +211,7 @@ function reportLine(l: BagLine, particle: boolean, total: D, w: D): Report['line
     mOsm: particle ? particleMOsm : labelMOsm,
     particleMOsm,
     labelMOsm,
-    sharePercent: total.isZero() ? 0 : roundDivided(particle ? l.particleMOsm : l.labelMOsm, total, 2, 1),
+    sharePercent: total === null ? 0 : roundDivided(particle ? l.particleMOsm : l.labelMOsm, total, 2, 1),
     kcal: round(l.kcal, 1),
   };
 }
@@ -196,11 +220,9 @@ function reportLine(l: BagLine, particle: boolean, total: D, w: D): Report['line
 function reportLines(bag: Bag): Report['lines'] {
   const particle = bag.osmolarity.method === 'particle';
   const total = particle ? bag.totalMOsm.particle : bag.totalMOsm.labelSum;
+  const share = total.isZero() ? null : total;
   const w = bag.order.patient.weightKg;
-  const lines = bag.lines;
-  const out: Report['lines'] = [];
-  for (let i = 0; i < lines.length; i++) out.push(reportLine(lines[i]!, particle, total, w));
-  return out;
+  return bag.lines.map((l) => reportLine(l, particle, share, w));
 }
 
 /**
@@ -224,72 +246,108 @@ function reportFinding(f: Finding): Report['findings'][number] {
   return { code: f.code, severity: f.severity, value, limit, unit: f.unit, message: f.message, source: f.source, lines: f.lines, fields: f.fields, nutrient, screen };
 }
 
-/** Round the bag and its findings into the report, once, at this edge. */
-export function toReport(bag: Bag, findings: Finding[], verdict: Verdict, catalog: Catalog, policy: Policy): Report {
+/** A policy's figures that every report under it shows, each rounded once. */
+interface PolicyFigures {
+  plasmaMin: number;
+  plasmaMax: number;
+  temperatureC: number;
+  mmHgPerMOsmPerL: number;
+  /** The peripheral osmolarity limit by age group, rounded; null where the policy has none. */
+  peripheralLimit: Readonly<Record<AgeGroup, number | null>>;
+}
+
+// Policies are immutable once parsed, so their rounded figures are kept for as long as the policy lives.
+const policyFigures = new WeakMap<Policy, PolicyFigures>();
+
+function figuresOf(policy: Policy): PolicyFigures {
+  const kept = policyFigures.get(policy);
+  if (kept !== undefined) return kept;
+  const plasma = policy.reference.plasmaOsmolality;
+  const temp = policy.reference.osmoticPressureTemperatureC.value;
+  const limit = (age: AgeGroup): number | null => {
+    const max = ruleFor(policy, 'osmolarity-peripheral', age)?.max ?? null;
+    return max ? round(max, 1) : null;
+  };
+  const f: PolicyFigures = {
+    plasmaMin: round(plasma.min, 0),
+    plasmaMax: round(plasma.max, 0),
+    temperatureC: round(temp, 1),
+    mmHgPerMOsmPerL: round(mmHgPerMOsmPerL(temp), 2),
+    peripheralLimit: { adult: limit('adult'), child: limit('child'), 'term-neonate': limit('term-neonate'), 'preterm-neonate': limit('preterm-neonate') },
+  };
+  policyFigures.set(policy, f);
+  return f;
+}
+
+/**
+ * Round the bag, its findings and its suggestions (if any: `suggestions` is left out of a report without
+ * them) into the report, once, at this edge.
+ */
+export function toReport(bag: Bag, findings: readonly Finding[], verdict: Verdict, catalog: Catalog, policy: Policy, suggestions: readonly Suggestion[] = []): Report {
   const o = bag.order;
   const w = o.patient.weightKg;
   const V = bag.finalVolumeMl;
-  const limit = ruleFor(policy, 'osmolarity-peripheral', o.patient.ageGroup)?.max ?? null;
+  const figures = figuresOf(policy);
   const plasma = policy.reference.plasmaOsmolality;
-  const temp = policy.reference.osmoticPressureTemperatureC.value;
   const reported = bag.osmolarity.reported;
   const species = speciesTotals(bag);
   const osmoticPressureMmHg = round(bag.osmoticPressureMmHg, 0);
-  const mmHg = round(mmHgPerMOsmPerL(temp), 2);
-  const temperatureC = round(temp, 1);
-  const plasmaOsmolality = { min: round(plasma.min, 0), max: round(plasma.max, 0), unit: plasma.unit, source: plasma.source };
+  const plasmaOsmolality = { min: figures.plasmaMin, max: figures.plasmaMax, unit: plasma.unit, source: plasma.source };
   const timesPlasma = { low: roundDivided(reported, plasma.max, 0, 2), high: roundDivided(reported, plasma.min, 0, 2) };
   const predictedOsmolality = predictedOsmolalityReport(bag);
+  const mmHg = figures.mmHgPerMOsmPerL;
+  const temperatureC = figures.temperatureC;
   // One literal with or without the prediction (a key added to a finished literal goes to a separate store).
   const information: Report['information'] = predictedOsmolality
     ? { osmoticPressureMmHg, mmHgPerMOsmPerL: mmHg, temperatureC, plasmaOsmolality, timesPlasma, predictedOsmolality }
     : { osmoticPressureMmHg, mmHgPerMOsmPerL: mmHg, temperatureC, plasmaOsmolality, timesPlasma };
-  return {
-    format: 'osmocount-report',
-    version: 1,
-    order: o.id,
-    patient: { id: o.patient.id, name: o.patient.name, location: o.patient.location, weightKg: round(w, 3), ageGroup: o.patient.ageGroup },
-    route: o.route,
-    catalog: catalog.id,
-    policy: policy.id,
-    volumeMl: round(V, 2),
-    hours: round(bag.hours, 2),
-    rateMlPerHour: round(bag.rateMlPerHour, 2),
-    lines: reportLines(bag),
-    osmolarity: {
-      particle: round(bag.osmolarity.particle, 1),
-      labelSum: round(bag.osmolarity.labelSum, 1),
-      reported: round(reported, 1),
-      method: bag.osmolarity.method,
-      spread: round(bag.osmolarity.labelSum.minus(bag.osmolarity.particle), 1),
-      totalMOsm: round(bag.osmolarity.method === 'particle' ? bag.totalMOsm.particle : bag.totalMOsm.labelSum, 1),
-      peripheralLimit: limit ? round(limit, 1) : null,
-    },
-    totals: {
-      mmolPerL: species.mmolPerL,
-      mEqPerL: species.mEqPerL,
-      mmolPerDay: species.mmolPerDay,
-      mmolPerKgPerDay: species.mmolPerKgPerDay,
-      dextrosePercent: round(bag.percent.dextrose, 2),
-      aminoAcidPercent: round(bag.percent.aminoAcids, 2),
-      lipidPercent: round(bag.percent.lipid, 2),
-      grams: { dextrose: round(bag.grams.dextrose, 2), aminoAcids: round(bag.grams.aminoAcids, 2), lipid: round(bag.grams.lipid, 2) },
-      gramsPerKg: { dextrose: roundDivided(bag.grams.dextrose, w, 0, 3), aminoAcids: roundDivided(bag.grams.aminoAcids, w, 0, 3), lipid: roundDivided(bag.grams.lipid, w, 0, 3) },
-      kcal: {
-        dextrose: round(bag.kcal.dextrose, 1), aminoAcids: round(bag.kcal.aminoAcids, 1), lipid: round(bag.kcal.lipid, 1),
-        other: round(bag.kcal.other, 1), total: round(bag.kcal.total, 1), nonProtein: round(bag.kcal.nonProtein, 1),
-      },
-      kcalPerKg: roundDivided(bag.kcal.total, w, 0, 1),
-      nitrogenG: round(bag.nitrogenG, 2),
-      npcToN: bag.npcToN ? round(bag.npcToN, 0) : null,
-      girMgPerKgPerMin: round(bag.girMgPerKgPerMin, 2),
-      fluidMlPerKg: roundDivided(V, w, 0, 1),
-      aluminumMcgPerKgPerDay: round(bag.aluminumMcgPerKgPerDay, 2),
-    },
-    information,
-    findings: findings.map(reportFinding),
-    verdict,
+  const patient = { id: o.patient.id, name: o.patient.name, location: o.patient.location, weightKg: round(w, 3), ageGroup: o.patient.ageGroup };
+  const volumeMl = round(V, 2);
+  const hours = round(bag.hours, 2);
+  const rateMlPerHour = round(bag.rateMlPerHour, 2);
+  const lines = reportLines(bag);
+  const osmolarity = {
+    particle: round(bag.osmolarity.particle, 1),
+    labelSum: round(bag.osmolarity.labelSum, 1),
+    reported: round(reported, 1),
+    method: bag.osmolarity.method,
+    spread: round(bag.osmolarity.labelSum.minus(bag.osmolarity.particle), 1),
+    totalMOsm: round(bag.osmolarity.method === 'particle' ? bag.totalMOsm.particle : bag.totalMOsm.labelSum, 1),
+    peripheralLimit: figures.peripheralLimit[o.patient.ageGroup],
   };
+  const totals = {
+    mmolPerL: species.mmolPerL,
+    mEqPerL: species.mEqPerL,
+    mmolPerDay: species.mmolPerDay,
+    mmolPerKgPerDay: species.mmolPerKgPerDay,
+    dextrosePercent: round(bag.percent.dextrose, 2),
+    aminoAcidPercent: round(bag.percent.aminoAcids, 2),
+    lipidPercent: round(bag.percent.lipid, 2),
+    grams: { dextrose: round(bag.grams.dextrose, 2), aminoAcids: round(bag.grams.aminoAcids, 2), lipid: round(bag.grams.lipid, 2) },
+    gramsPerKg: { dextrose: roundDivided(bag.grams.dextrose, w, 0, 3), aminoAcids: roundDivided(bag.grams.aminoAcids, w, 0, 3), lipid: roundDivided(bag.grams.lipid, w, 0, 3) },
+    kcal: {
+      dextrose: round(bag.kcal.dextrose, 1), aminoAcids: round(bag.kcal.aminoAcids, 1), lipid: round(bag.kcal.lipid, 1),
+      other: round(bag.kcal.other, 1), total: round(bag.kcal.total, 1), nonProtein: round(bag.kcal.nonProtein, 1),
+    },
+    kcalPerKg: roundDivided(bag.kcal.total, w, 0, 1),
+    nitrogenG: round(bag.nitrogenG, 2),
+    npcToN: bag.npcToN ? round(bag.npcToN, 0) : null,
+    girMgPerKgPerMin: round(bag.girMgPerKgPerMin, 2),
+    fluidMlPerKg: roundDivided(V, w, 0, 1),
+    aluminumMcgPerKgPerDay: round(bag.aluminumMcgPerKgPerDay, 2),
+  };
+  const reportedFindings = findings.map(reportFinding);
+  // One literal with or without suggestions, which come last (where the report has always written them).
+  return suggestions.length === 0
+    ? {
+      format: 'osmocount-report', version: 1, order: o.id, patient, route: o.route, catalog: catalog.id, policy: policy.id,
+      volumeMl, hours, rateMlPerHour, lines, osmolarity, totals, information, findings: reportedFindings, verdict,
+    }
+    : {
+      format: 'osmocount-report', version: 1, order: o.id, patient, route: o.route, catalog: catalog.id, policy: policy.id,
+      volumeMl, hours, rateMlPerHour, lines, osmolarity, totals, information, findings: reportedFindings, verdict,
+      suggestions: suggestions.map(suggestionReport),
+    };
 }
 
 /** Display label of a species for tables. */
