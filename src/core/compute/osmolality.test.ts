@@ -15,6 +15,15 @@ describe('osmotic-coefficient estimate', () => {
     expect(e.notes.join(' ')).not.toContain('counted as ideal');
   });
 
+  it('two lines of the same salt count as one line of their sum (φ × x + φ × y = φ × (x + y))', () => {
+    // 10 mL + 28.5 mL of sodium chloride 4 mmol/mL: 154 mmol Na + 154 mmol Cl in 1000 mL, as above → 286.44.
+    const bag = bagOf({ age: 'adult', weightKg: 70, volumeMl: 1000, lines: [
+      { product: 'sodium-chloride-4', amount: 10, unit: 'mL' }, { product: 'sodium-chloride-4', amount: '28.5', unit: 'mL' },
+      { product: 'sterile-water', fill: true },
+    ] });
+    expect(osmoticCoefficientEstimate(bag).value.toString()).toBe('286.44');
+  });
+
   it('glucose counts at φ 1.01 and magnesium sulfate at 0.58 (table values)', () => {
     // dextrose 10%: 1000 mL × 0.1 g/mL × 5.046 mOsm/g = 504.6 ideal → × 1.01 = 509.646.
     const dextrose = bagOf({ age: 'adult', weightKg: 70, lines: [{ product: 'dextrose-10', amount: 1000, unit: 'mL' }] });

@@ -60,20 +60,20 @@ interface StockTerms {
    * particles per mL × the volume, as computeBag makes it), the same decimal, and its ions add zero.
    */
   nutrientOnly: boolean;
-  /** φ of the nutrient: glucose's for dextrose, null (ideal) for any other nutrient. */
-  nutrientPhi: D | null;
-  /** φ of the stock's dissolved ions (the table's salt), null when the table has none. */
-  ion: Coefficient | null;
+  /** The nutrient is glucose (φ 1.01); any other nutrient counts as ideal. */
+  glucose: boolean;
+  /** Where the stock's dissolved ions' salt stands in the φ table; −1 when the table has none (ideal). */
+  ion: number;
   /** The nutrient adds particles and has no φ (not glucose): the stock is named as counted ideal. */
   idealNutrient: boolean;
 }
 
 const terms = new WeakMap<Product, StockTerms>();
 
-/** The φ for a stock's dissolved ions: the table's salt whose species match exactly, else null. */
-function ionCoefficient(product: Product): Coefficient | null {
+/** Where a stock's dissolved ions stand in the φ table (the salt whose species match exactly), else −1. */
+function ionCoefficient(product: Product): number {
   const present = [...stockFigures(product).holds].sort();
-  return COEFFICIENTS.find((c) => c.species.length === present.length && [...c.species].sort().every((s, i) => s === present[i])) ?? null;
+  return COEFFICIENTS.findIndex((c) => c.species.length === present.length && [...c.species].sort().every((s, i) => s === present[i]));
 }
 
 /** A stock's terms, computed on first use and kept for the product's lifetime. */
@@ -88,7 +88,7 @@ function stockTerms(product: Product): StockTerms {
       counts: p.gt(ZERO),
       nutrientPerMl,
       nutrientOnly: nutrientPerMl !== null && nutrientPerMl.x === null && p.x === null && nutrientPerMl.c === p.c && nutrientPerMl.e === p.e,
-      nutrientPhi: dextrose ? GLUCOSE_PHI : null,
+      glucose: dextrose,
       ion: ionCoefficient(product),
       idealNutrient: nutrientPerMl !== null && !dextrose,
     };
@@ -104,7 +104,11 @@ function stockTerms(product: Product): StockTerms {
  */
 export function osmoticCoefficientEstimate(bag: Bag): OsmolalityEstimate {
   let uncounted: string[] | null = null;
-  let total = ZERO;
+  // The particles are summed by coefficient first (the table's salts, glucose, and ideal), then each sum
+  // is multiplied by its φ once: Σ φ·xᵢ = φ·Σ xᵢ, with one multiplication per coefficient, not per line.
+  const byCoefficient: D[] = COEFFICIENTS.map(() => ZERO);
+  let glucose = ZERO;
+  let ideal = ZERO;
   const lines = bag.lines;
   for (let i = 0; i < lines.length; i++) {
     const l = lines[i]!;
@@ -115,12 +119,22 @@ export function osmoticCoefficientEstimate(bag: Bag): OsmolalityEstimate {
     let ionMOsm = l.particleMOsm;
     if (t.nutrientPerMl !== null) {
       const nutrientMOsm = t.nutrientOnly ? l.particleMOsm : t.nutrientPerMl.times(l.volumeMl);
-      total = total.plus(t.nutrientPhi ? nutrientMOsm.times(t.nutrientPhi) : nutrientMOsm);
+      if (t.glucose) glucose = glucose.plus(nutrientMOsm);
+      else ideal = ideal.plus(nutrientMOsm);
       ionMOsm = t.nutrientOnly ? ZERO : l.particleMOsm.minus(nutrientMOsm);
     }
-    // A zero term, or φ = 1, would change no digit of the total: both are left out.
-    if (!ionMOsm.isZero()) total = total.plus(t.ion ? ionMOsm.times(t.ion.phi) : ionMOsm);
-    if (t.idealNutrient || (!t.ion && ionMOsm.gt(ZERO))) (uncounted ??= []).push(l.product.name);
+    if (!ionMOsm.isZero()) {
+      if (t.ion >= 0) byCoefficient[t.ion] = byCoefficient[t.ion]!.plus(ionMOsm);
+      else ideal = ideal.plus(ionMOsm);
+    }
+    if (t.idealNutrient || (t.ion < 0 && ionMOsm.gt(ZERO))) (uncounted ??= []).push(l.product.name);
+  }
+  // A zero sum, or φ = 1, would change no digit of the total: both are left out.
+  let total = ideal;
+  if (!glucose.isZero()) total = total.plus(glucose.times(GLUCOSE_PHI));
+  for (let k = 0; k < byCoefficient.length; k++) {
+    const x = byCoefficient[k]!;
+    if (!x.isZero()) total = total.plus(x.times(COEFFICIENTS[k]!.phi));
   }
   const notes = [COEFFICIENT_NOTE];
   if (uncounted !== null) notes.push(`No coefficient in the table, counted as ideal (φ = 1): ${uncounted.join('; ')}.`);
