@@ -118,8 +118,27 @@ function roundQuotient(q: number, d: number, rm: number, negative: boolean): num
 
 const RAW: unique symbol = Symbol('raw');
 
-/** A finite value with a safe-integer coefficient, trailing zeros removed (zero has exponent 0). */
+/**
+ * A finite value with a coefficient below 2⁵² in magnitude (every rounded result: at most 10¹⁵), trailing
+ * zeros removed (zero has exponent 0). The test multiplies by the double 0.1, which is 0.1·(1 + 2⁻⁵⁴),
+ * instead of dividing by ten: for c = 10k the product k·(1 + 2⁻⁵⁴) is nearer k than half of k's float
+ * spacing, so it rounds to k exactly; for c = 10k + j (j = 1…9) the exact product lies at least
+ * 0.1 − |c|·0.1·2⁻⁵⁴ > 0.07 from every whole number, and below 2⁴⁹ (|c| < 2⁵²) half the float spacing is
+ * at most 1/32, so it never rounds to one.
+ */
 function canonical(c: number, e: number): D {
+  if (c === 0) return new D(RAW, c, 0, null);
+  let t = c * 0.1;
+  while (t === Math.floor(t)) {
+    c = t;
+    e += 1;
+    t = c * 0.1;
+  }
+  return new D(RAW, c, e, null);
+}
+
+/** As canonical, for any safe-integer coefficient. */
+function canonicalWide(c: number, e: number): D {
   if (c === 0) return new D(RAW, c, 0, null);
   while (tens(c)) { c /= 10; e += 1; }
   return new D(RAW, c, e, null);
@@ -296,7 +315,8 @@ function readValue(value: Numeric): D {
   }
   if (typeof value === 'number' && shortDecimal(value)) return new D(RAW, parsedC, parsedE, null);
   const text = typeof value === 'number' ? String(value) : value;
-  if (typeof text === 'string' && parseDecimal(text)) return canonical(parsedC, parsedE);
+  // parseDecimal leaves no trailing zeros in the coefficient: no canonical() pass.
+  if (typeof text === 'string' && parseDecimal(text)) return new D(RAW, parsedC, parsedE, null);
   // decimal.js reads (or rejects, with its own error) everything else: Infinity, NaN, long coefficients.
   const reference = new Reference(value as string | number);
   if (reference.isFinite() && parseDecimal(reference.valueOf())) return new D(RAW, parsedC, parsedE, null);
@@ -556,7 +576,7 @@ export class D {
     if (this.x !== null) return fromReference(this.x.toDecimalPlaces(dp, rm as Decimal.Rounding));
     if (this.e >= -dp || this.c === 0) return this;
     const q = this.roundedCoefficient(dp, rm);
-    return q === 0 ? new D(RAW, this.c < 0 ? -0 : 0, 0, null) : canonical(q, -dp);
+    return q === 0 ? new D(RAW, this.c < 0 ? -0 : 0, 0, null) : canonicalWide(q, -dp);
   }
 
   /** toDecimalPlaces(dp) (half-even) as the nearest binary float, without making the rounded decimal. */
@@ -649,7 +669,7 @@ export class D {
     // decimal.js leaves this product exact (not rounded to PRECISION).
     const product = (negative ? -q : q) * y.c;
     if (product > MAX || product < -MAX) return fromReference(toReference(this).toNearest(toReference(y), rm as Decimal.Rounding));
-    return canonical(product, y.e);
+    return canonicalWide(product, y.e);
   }
 
   // ---- conversion ----------------------------------------------------------------------------------------
@@ -811,7 +831,7 @@ export function toDecimal(value: unknown): D | null {
   if (typeof value === 'string') {
     const text = value.trim();
     // Plain decimal text with a safe-integer coefficient (nearly every file) is read without the pattern.
-    if (parseDecimal(text)) return canonical(parsedC, parsedE);
+    if (parseDecimal(text)) return new D(RAW, parsedC, parsedE, null);
     if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(text)) return null;
     const d = new D(text);
     return d.isFinite() ? d : null;
