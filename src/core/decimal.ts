@@ -412,10 +412,13 @@ export class D {
     const a = this.c;
     const b = v.c;
     const p = a * b;
-    if (p <= MAX && p >= -MAX) return make(p, this.e + v.e);
-    if (b < SHORT && b > -SHORT && a < LIMIT && a > -LIMIT) return productShort(a, b, this.e + v.e);
-    if (a < SHORT && a > -SHORT && b < LIMIT && b > -LIMIT) return productShort(b, a, this.e + v.e);
-    return roundPair(p, twoProductError(a, b, p), this.e + v.e);
+    const e = this.e + v.e;
+    // Below 10¹⁵ the float product is exact and needs no rounding (fl(a × b) ≥ 2⁵³ when a × b is wider).
+    if (p < LIMIT && p > -LIMIT) return canonical(p, e);
+    if (p <= MAX && p >= -MAX) return roundPair(p, 0, e);
+    if (b < SHORT && b > -SHORT && a < LIMIT && a > -LIMIT) return productShort(a, b, e);
+    if (a < SHORT && a > -SHORT && b < LIMIT && b > -LIMIT) return productShort(b, a, e);
+    return roundPair(p, twoProductError(a, b, p), e);
   }
 
   mul(y: Numeric): D {
@@ -576,7 +579,8 @@ export class D {
     if (this.x !== null) return fromReference(this.x.toDecimalPlaces(dp, rm as Decimal.Rounding));
     if (this.e >= -dp || this.c === 0) return this;
     const q = this.roundedCoefficient(dp, rm);
-    return q === 0 ? new D(RAW, this.c < 0 ? -0 : 0, 0, null) : canonicalWide(q, -dp);
+    // q has at least one digit fewer than the coefficient: below 2⁵³ ÷ 10 + 1.
+    return q === 0 ? new D(RAW, this.c < 0 ? -0 : 0, 0, null) : canonical(q, -dp);
   }
 
   /** toDecimalPlaces(dp) (half-even) as the nearest binary float, without making the rounded decimal. */
@@ -787,8 +791,6 @@ function sumSplit(a: number, b: number, d: number, e: number): D {
 
 /** a·10^ea + b·10^eb for safe-integer coefficients, rounded to PRECISION digits. */
 function add(a: number, ea: number, b: number, eb: number): D {
-  if (a === 0) return b === 0 ? canonical(a + b, 0) : make(b, eb);
-  if (b === 0) return make(a, ea);
   if (ea < eb) {
     const t = a; a = b; b = t;
     const te = ea; ea = eb; eb = te;
@@ -797,16 +799,21 @@ function add(a: number, ea: number, b: number, eb: number): D {
   const d = ea - eb;
   if (d === 0) {
     const s = a + b;
-    if (s <= MAX && s >= -MAX) return make(s, eb);
+    if (s < LIMIT && s > -LIMIT) return canonical(s, eb); // a zero sum is +0 (−0 only for −0 + −0), as decimal.js
+    if (s <= MAX && s >= -MAX) return roundPair(s, 0, eb);
     const lo = (a - (s - (s - a))) + (b - (s - a)); // Knuth's two-sum error
     return roundPair(s, lo, eb);
   }
+  // A zero (always at exponent 0) is not scaled: the other operand is the sum, however far apart they are.
+  if (a === 0) return make(b, eb);
+  if (b === 0) return make(a, ea);
   if (d > 22) return roundExactly(BigInt(a) * 10n ** BigInt(d) + BigInt(b), eb);
   const scaled = a * POW10[d]!;
-  if (scaled <= MAX && scaled >= -MAX) {
-    const s = scaled + b;
-    if (s <= MAX && s >= -MAX) return make(s, eb);
-  }
+  const sum = scaled + b;
+  // Exact whenever it is below 10¹⁵: a·10^d that is not a float (its odd part above 2⁵³) exceeds 2⁵⁴, and
+  // then |fl(a·10^d) + b| ≥ 2⁵⁴ − 2⁵³.
+  if (sum < LIMIT && sum > -LIMIT) return canonical(sum, eb);
+  if (scaled <= MAX && scaled >= -MAX && sum <= MAX && sum >= -MAX) return roundPair(sum, 0, eb);
   if (d <= 15 && a < LIMIT && a > -LIMIT && b < LIMIT && b > -LIMIT) return sumSplit(a, b, d, eb);
   // Beyond 2¹⁰⁴ (or with a 16-digit b) the error terms below could reach 2⁵³: the exact slow path.
   if (scaled >= 2e31 || scaled <= -2e31 || b >= 4.5e15 || b <= -4.5e15) return roundExactly(BigInt(a) * 10n ** BigInt(d) + BigInt(b), eb);
