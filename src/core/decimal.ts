@@ -200,9 +200,23 @@ function productShort(a: number, b: number, e: number): D {
   return canonical(negative ? -q : q, e + k);
 }
 
+/**
+ * A safe integer of 16 digits (10¹⁵ ≤ |n| < 2⁵³) times 10^e, rounded to PRECISION digits: only its last
+ * digit goes. q × 10 stays below 2⁵³, so the remainder is exact.
+ */
+function roundLast(n: number, e: number): D {
+  const negative = n < 0;
+  const m = negative ? -n : n;
+  let q = Math.floor(m / 10);
+  let r = m - q * 10;
+  if (r < 0) { q -= 1; r += 10; } else if (r >= 10) { q += 1; r -= 10; }
+  if (r > 5 || (r === 5 && odd(q))) q += 1;
+  return canonical(negative ? -q : q, e + 1);
+}
+
 /** A safe integer times 10^e, rounded to PRECISION digits. */
 function make(c: number, e: number): D {
-  return c < LIMIT && c > -LIMIT ? canonical(c, e) : roundPair(c, 0, e);
+  return c < LIMIT && c > -LIMIT ? canonical(c, e) : roundLast(c, e);
 }
 
 function fromReference(r: Reference): D {
@@ -415,7 +429,7 @@ export class D {
     const e = this.e + v.e;
     // Below 10¹⁵ the float product is exact and needs no rounding (fl(a × b) ≥ 2⁵³ when a × b is wider).
     if (p < LIMIT && p > -LIMIT) return canonical(p, e);
-    if (p <= MAX && p >= -MAX) return roundPair(p, 0, e);
+    if (p <= MAX && p >= -MAX) return roundLast(p, e);
     if (b < SHORT && b > -SHORT && a < LIMIT && a > -LIMIT) return productShort(a, b, e);
     if (a < SHORT && a > -SHORT && b < LIMIT && b > -LIMIT) return productShort(b, a, e);
     return roundPair(p, twoProductError(a, b, p), e);
@@ -800,7 +814,7 @@ function add(a: number, ea: number, b: number, eb: number): D {
   if (d === 0) {
     const s = a + b;
     if (s < LIMIT && s > -LIMIT) return canonical(s, eb); // a zero sum is +0 (−0 only for −0 + −0), as decimal.js
-    if (s <= MAX && s >= -MAX) return roundPair(s, 0, eb);
+    if (s <= MAX && s >= -MAX) return roundLast(s, eb);
     const lo = (a - (s - (s - a))) + (b - (s - a)); // Knuth's two-sum error
     return roundPair(s, lo, eb);
   }
@@ -813,7 +827,7 @@ function add(a: number, ea: number, b: number, eb: number): D {
   // Exact whenever it is below 10¹⁵: a·10^d that is not a float (its odd part above 2⁵³) exceeds 2⁵⁴, and
   // then |fl(a·10^d) + b| ≥ 2⁵⁴ − 2⁵³.
   if (sum < LIMIT && sum > -LIMIT) return canonical(sum, eb);
-  if (scaled <= MAX && scaled >= -MAX && sum <= MAX && sum >= -MAX) return roundPair(sum, 0, eb);
+  if (scaled <= MAX && scaled >= -MAX && sum <= MAX && sum >= -MAX) return roundLast(sum, eb);
   if (d <= 15 && a < LIMIT && a > -LIMIT && b < LIMIT && b > -LIMIT) return sumSplit(a, b, d, eb);
   // Beyond 2¹⁰⁴ (or with a 16-digit b) the error terms below could reach 2⁵³: the exact slow path.
   if (scaled >= 2e31 || scaled <= -2e31 || b >= 4.5e15 || b <= -4.5e15) return roundExactly(BigInt(a) * 10n ** BigInt(d) + BigInt(b), eb);
