@@ -165,6 +165,19 @@ function roundExactly(n: bigint, e: number): D {
   return fromReference(new Reference(`${n}e${e}`).toSignificantDigits(PRECISION, Decimal.ROUND_HALF_EVEN));
 }
 
+/**
+ * m ÷ 10^shift rounded half-even, for 0 ≤ m < 10¹⁵ (a rounded coefficient) and 1 ≤ shift ≤ 15: the floor
+ * from the float quotient, at most one off, and the remainder exact (every product here stays below 2⁵³).
+ */
+function shiftedHalfEven(m: number, shift: number): number {
+  const d = POW10[shift]!;
+  let q = Math.floor(m / d);
+  let r = m - q * d;
+  if (r < 0) { q -= 1; r += d; } else if (r >= d) { q += 1; r -= d; }
+  const twice = r * 2;
+  return twice > d || (twice === d && odd(q)) ? q + 1 : q;
+}
+
 /** A factor this short times a rounded coefficient (below 10¹⁵) splits into exact partial products. */
 const SHORT = 1e7;
 
@@ -603,14 +616,7 @@ export class D {
     const shift = -dp - this.e;
     const magnitude = Math.abs(this.c);
     if (shift <= 15 && magnitude < LIMIT && dp <= 22) {
-      // A rounded coefficient (below 10¹⁵): floor(magnitude ÷ 10^shift) from the float quotient, at most one
-      // off, and the remainder exact (every product here stays below 2⁵³).
-      const d = POW10[shift]!;
-      let q = Math.floor(magnitude / d);
-      let r = magnitude - q * d;
-      if (r < 0) { q -= 1; r += d; } else if (r >= d) { q += 1; r -= d; }
-      const twice = r * 2;
-      if (twice > d || (twice === d && odd(q))) q += 1;
+      const q = shiftedHalfEven(magnitude, shift);
       if (q === 0) return this.c < 0 ? -0 : 0;
       const n = q / POW10[dp]!;
       return this.c < 0 ? -n : n;
@@ -642,7 +648,9 @@ export class D {
     const magnitude = Math.abs(this.c);
     const shift = -dp - this.e;
     let q: number;
-    if (shift > 22) {
+    if (rm === HALF_EVEN && shift <= 15 && magnitude < LIMIT) {
+      q = shiftedHalfEven(magnitude, shift); // the report's rounding of a rounded result
+    } else if (shift > 22) {
       q = bumps(rm, negative, false, -1) ? 1 : 0; // the magnitude is below 2⁵³, far under one half of 10²²
     } else {
       const d = POW10[shift]!;
