@@ -464,7 +464,11 @@ export class D {
     // A whole quotient: fl(q × B) equals A only when q × B is A exactly (a product above 2⁵³ rounds to
     // at least 2⁵³, above any safe A).
     const whole = A / B;
-    if (whole === Math.floor(whole) && whole * B === A) return make(negative ? -whole : whole, this.e - v.e);
+    if (whole === Math.floor(whole) && whole * B === A) {
+      // A ends in no zero, so neither does a whole quotient (A = whole × B): no canonical() pass.
+      const q = negative ? -whole : whole;
+      return whole < LIMIT ? new D(RAW, q, this.e - v.e, null) : roundLast(q, this.e - v.e);
+    }
     if (A >= LIMIT || B >= LIMIT) return fromReference(toReference(this).div(toReference(v)));
     // Scale A by 10^s so that floor(A·10^s ÷ B) has exactly PRECISION digits.
     const nA = digits(A);
