@@ -777,7 +777,8 @@ export class D {
 }
 
 /**
- * a·10^d + b, times 10^e, rounded to PRECISION digits (half-even), for |a|, |b| < 10¹⁵ and 1 ≤ d ≤ 15 —
+ * a·10^d + b, times 10^e, rounded to PRECISION digits (half-even), for |a|, |b| < 10¹⁵, b ≠ 0 without
+ * trailing zeros, and 1 ≤ d ≤ 15 —
  * two rounded figures of different sizes, the engine's commonest sum. b splits at 10^d into q·10^d + r,
  * so the sum is S·10^d + r with S = a + q, held exactly and rounded by its own digits.
  */
@@ -790,11 +791,12 @@ function sumSplit(a: number, b: number, d: number, e: number): D {
   const negative = S < 0 || (S === 0 && r < 0);
   const Sm = Math.abs(S);
   const rm = Math.abs(r);
-  if (Sm === 0) return canonical(r, e);
+  // An exact sum ends in b's last digit, which is not a zero (a·10^d ends in zeros): no canonical() pass.
+  if (Sm === 0) return new D(RAW, r, e, null);
   const drop = digits(Sm) + d - PRECISION;
   if (drop <= 0) {
     const exact = Sm * unit + rm; // below 10¹⁵
-    return canonical(negative ? -exact : exact, e);
+    return new D(RAW, negative ? -exact : exact, e, null);
   }
   let keep: number;
   let half: number;
@@ -837,8 +839,8 @@ function add(a: number, ea: number, b: number, eb: number): D {
   const scaled = a * POW10[d]!;
   const sum = scaled + b;
   // Exact whenever it is below 10¹⁵: a·10^d that is not a float (its odd part above 2⁵³) exceeds 2⁵⁴, and
-  // then |fl(a·10^d) + b| ≥ 2⁵⁴ − 2⁵³.
-  if (sum < LIMIT && sum > -LIMIT) return canonical(sum, eb);
+  // then |fl(a·10^d) + b| ≥ 2⁵⁴ − 2⁵³. It ends in b's last digit, which is not a zero: no canonical() pass.
+  if (sum < LIMIT && sum > -LIMIT) return new D(RAW, sum, eb, null);
   if (scaled <= MAX && scaled >= -MAX && sum <= MAX && sum >= -MAX) return roundLast(sum, eb);
   if (d <= 15 && a < LIMIT && a > -LIMIT && b < LIMIT && b > -LIMIT) return sumSplit(a, b, d, eb);
   // Beyond 2¹⁰⁴ (or with a 16-digit b) the error terms below could reach 2⁵³: the exact slow path.
