@@ -94,7 +94,8 @@ describe('the engine decimal gives decimal.js results at 15 digits', { timeout: 
       same(new D(`${t}e-5`).toDecimalPlaces(2), new Ref(`${t}e-5`).toDecimalPlaces(2));
     }
     // Zeros, signed zeros and cancelling sums keep decimal.js's sign.
-    for (const [a, b] of [['0', '-0'], ['-0', '-0'], ['5', '-5'], ['-5e3', '5e3'], ['0', '7e-30'], ['-0', '7e40'], ['123e20', '0']]) {
+    const zeros: [string, string][] = [['0', '-0'], ['-0', '-0'], ['5', '-5'], ['-5e3', '5e3'], ['0', '7e-30'], ['-0', '7e40'], ['123e20', '0']];
+    for (const [a, b] of zeros) {
       same(new D(a).plus(b), new Ref(a).plus(b));
       same(new D(a).minus(b), new Ref(a).minus(b));
       same(new D(a).times(b), new Ref(a).times(b));
