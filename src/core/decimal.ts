@@ -118,8 +118,27 @@ function roundQuotient(q: number, d: number, rm: number, negative: boolean): num
 
 const RAW: unique symbol = Symbol('raw');
 
-/** A finite value with a safe-integer coefficient, trailing zeros removed (zero has exponent 0). */
+/**
+ * A finite value with a coefficient below 2⁵² in magnitude (every rounded result: at most 10¹⁵), trailing
+ * zeros removed (zero has exponent 0). The test multiplies by the double 0.1, which is 0.1·(1 + 2⁻⁵⁴),
+ * instead of dividing by ten: for c = 10k the product k·(1 + 2⁻⁵⁴) is nearer k than half of k's float
+ * spacing, so it rounds to k exactly; for c = 10k + j (j = 1…9) the exact product lies at least
+ * 0.1 − |c|·0.1·2⁻⁵⁴ > 0.07 from every whole number, and below 2⁴⁹ (|c| < 2⁵²) half the float spacing is
+ * at most 1/32, so it never rounds to one.
+ */
 function canonical(c: number, e: number): D {
+  if (c === 0) return new D(RAW, c, 0, null);
+  let t = c * 0.1;
+  while (t === Math.floor(t)) {
+    c = t;
+    e += 1;
+    t = c * 0.1;
+  }
+  return new D(RAW, c, e, null);
+}
+
+/** As canonical, for any safe-integer coefficient. */
+function canonicalWide(c: number, e: number): D {
   if (c === 0) return new D(RAW, c, 0, null);
   while (tens(c)) { c /= 10; e += 1; }
   return new D(RAW, c, e, null);
@@ -144,6 +163,19 @@ function roundPair(hi: number, lo: number, e: number): D {
 /** An exact integer times 10^e, rounded to PRECISION digits by decimal.js (the rare wide case). */
 function roundExactly(n: bigint, e: number): D {
   return fromReference(new Reference(`${n}e${e}`).toSignificantDigits(PRECISION, Decimal.ROUND_HALF_EVEN));
+}
+
+/**
+ * m ÷ 10^shift rounded half-even, for 0 ≤ m < 10¹⁵ (a rounded coefficient) and 1 ≤ shift ≤ 15: the floor
+ * from the float quotient, at most one off, and the remainder exact (every product here stays below 2⁵³).
+ */
+function shiftedHalfEven(m: number, shift: number): number {
+  const d = POW10[shift]!;
+  let q = Math.floor(m / d);
+  let r = m - q * d;
+  if (r < 0) { q -= 1; r += d; } else if (r >= d) { q += 1; r -= d; }
+  const twice = r * 2;
+  return twice > d || (twice === d && odd(q)) ? q + 1 : q;
 }
 
 /** A factor this short times a rounded coefficient (below 10¹⁵) splits into exact partial products. */
@@ -181,9 +213,23 @@ function productShort(a: number, b: number, e: number): D {
   return canonical(negative ? -q : q, e + k);
 }
 
+/**
+ * A safe integer of 16 digits (10¹⁵ ≤ |n| < 2⁵³) times 10^e, rounded to PRECISION digits: only its last
+ * digit goes. q × 10 stays below 2⁵³, so the remainder is exact.
+ */
+function roundLast(n: number, e: number): D {
+  const negative = n < 0;
+  const m = negative ? -n : n;
+  let q = Math.floor(m / 10);
+  let r = m - q * 10;
+  if (r < 0) { q -= 1; r += 10; } else if (r >= 10) { q += 1; r -= 10; }
+  if (r > 5 || (r === 5 && odd(q))) q += 1;
+  return canonical(negative ? -q : q, e + 1);
+}
+
 /** A safe integer times 10^e, rounded to PRECISION digits. */
 function make(c: number, e: number): D {
-  return c < LIMIT && c > -LIMIT ? canonical(c, e) : roundPair(c, 0, e);
+  return c < LIMIT && c > -LIMIT ? canonical(c, e) : roundLast(c, e);
 }
 
 function fromReference(r: Reference): D {
@@ -296,7 +342,8 @@ function readValue(value: Numeric): D {
   }
   if (typeof value === 'number' && shortDecimal(value)) return new D(RAW, parsedC, parsedE, null);
   const text = typeof value === 'number' ? String(value) : value;
-  if (typeof text === 'string' && parseDecimal(text)) return canonical(parsedC, parsedE);
+  // parseDecimal leaves no trailing zeros in the coefficient: no canonical() pass.
+  if (typeof text === 'string' && parseDecimal(text)) return new D(RAW, parsedC, parsedE, null);
   // decimal.js reads (or rejects, with its own error) everything else: Infinity, NaN, long coefficients.
   const reference = new Reference(value as string | number);
   if (reference.isFinite() && parseDecimal(reference.valueOf())) return new D(RAW, parsedC, parsedE, null);
@@ -392,10 +439,13 @@ export class D {
     const a = this.c;
     const b = v.c;
     const p = a * b;
-    if (p <= MAX && p >= -MAX) return make(p, this.e + v.e);
-    if (b < SHORT && b > -SHORT && a < LIMIT && a > -LIMIT) return productShort(a, b, this.e + v.e);
-    if (a < SHORT && a > -SHORT && b < LIMIT && b > -LIMIT) return productShort(b, a, this.e + v.e);
-    return roundPair(p, twoProductError(a, b, p), this.e + v.e);
+    const e = this.e + v.e;
+    // Below 10¹⁵ the float product is exact and needs no rounding (fl(a × b) ≥ 2⁵³ when a × b is wider).
+    if (p < LIMIT && p > -LIMIT) return canonical(p, e);
+    if (p <= MAX && p >= -MAX) return roundLast(p, e);
+    if (b < SHORT && b > -SHORT && a < LIMIT && a > -LIMIT) return productShort(a, b, e);
+    if (a < SHORT && a > -SHORT && b < LIMIT && b > -LIMIT) return productShort(b, a, e);
+    return roundPair(p, twoProductError(a, b, p), e);
   }
 
   mul(y: Numeric): D {
@@ -414,7 +464,11 @@ export class D {
     // A whole quotient: fl(q × B) equals A only when q × B is A exactly (a product above 2⁵³ rounds to
     // at least 2⁵³, above any safe A).
     const whole = A / B;
-    if (whole === Math.floor(whole) && whole * B === A) return make(negative ? -whole : whole, this.e - v.e);
+    if (whole === Math.floor(whole) && whole * B === A) {
+      // A ends in no zero, so neither does a whole quotient (A = whole × B): no canonical() pass.
+      const q = negative ? -whole : whole;
+      return whole < LIMIT ? new D(RAW, q, this.e - v.e, null) : roundLast(q, this.e - v.e);
+    }
     if (A >= LIMIT || B >= LIMIT) return fromReference(toReference(this).div(toReference(v)));
     // Scale A by 10^s so that floor(A·10^s ÷ B) has exactly PRECISION digits.
     const nA = digits(A);
@@ -556,6 +610,7 @@ export class D {
     if (this.x !== null) return fromReference(this.x.toDecimalPlaces(dp, rm as Decimal.Rounding));
     if (this.e >= -dp || this.c === 0) return this;
     const q = this.roundedCoefficient(dp, rm);
+    // q has at least one digit fewer than the coefficient: below 2⁵³ ÷ 10 + 1.
     return q === 0 ? new D(RAW, this.c < 0 ? -0 : 0, 0, null) : canonical(q, -dp);
   }
 
@@ -565,14 +620,7 @@ export class D {
     const shift = -dp - this.e;
     const magnitude = Math.abs(this.c);
     if (shift <= 15 && magnitude < LIMIT && dp <= 22) {
-      // A rounded coefficient (below 10¹⁵): floor(magnitude ÷ 10^shift) from the float quotient, at most one
-      // off, and the remainder exact (every product here stays below 2⁵³).
-      const d = POW10[shift]!;
-      let q = Math.floor(magnitude / d);
-      let r = magnitude - q * d;
-      if (r < 0) { q -= 1; r += d; } else if (r >= d) { q += 1; r -= d; }
-      const twice = r * 2;
-      if (twice > d || (twice === d && odd(q))) q += 1;
+      const q = shiftedHalfEven(magnitude, shift);
       if (q === 0) return this.c < 0 ? -0 : 0;
       const n = q / POW10[dp]!;
       return this.c < 0 ? -n : n;
@@ -604,7 +652,9 @@ export class D {
     const magnitude = Math.abs(this.c);
     const shift = -dp - this.e;
     let q: number;
-    if (shift > 22) {
+    if (rm === HALF_EVEN && shift <= 15 && magnitude < LIMIT) {
+      q = shiftedHalfEven(magnitude, shift); // the report's rounding of a rounded result
+    } else if (shift > 22) {
       q = bumps(rm, negative, false, -1) ? 1 : 0; // the magnitude is below 2⁵³, far under one half of 10²²
     } else {
       const d = POW10[shift]!;
@@ -649,7 +699,7 @@ export class D {
     // decimal.js leaves this product exact (not rounded to PRECISION).
     const product = (negative ? -q : q) * y.c;
     if (product > MAX || product < -MAX) return fromReference(toReference(this).toNearest(toReference(y), rm as Decimal.Rounding));
-    return canonical(product, y.e);
+    return canonicalWide(product, y.e);
   }
 
   // ---- conversion ----------------------------------------------------------------------------------------
@@ -727,7 +777,8 @@ export class D {
 }
 
 /**
- * a·10^d + b, times 10^e, rounded to PRECISION digits (half-even), for |a|, |b| < 10¹⁵ and 1 ≤ d ≤ 15 —
+ * a·10^d + b, times 10^e, rounded to PRECISION digits (half-even), for |a|, |b| < 10¹⁵, b ≠ 0 without
+ * trailing zeros, and 1 ≤ d ≤ 15 —
  * two rounded figures of different sizes, the engine's commonest sum. b splits at 10^d into q·10^d + r,
  * so the sum is S·10^d + r with S = a + q, held exactly and rounded by its own digits.
  */
@@ -740,11 +791,12 @@ function sumSplit(a: number, b: number, d: number, e: number): D {
   const negative = S < 0 || (S === 0 && r < 0);
   const Sm = Math.abs(S);
   const rm = Math.abs(r);
-  if (Sm === 0) return canonical(r, e);
+  // An exact sum ends in b's last digit, which is not a zero (a·10^d ends in zeros): no canonical() pass.
+  if (Sm === 0) return new D(RAW, r, e, null);
   const drop = digits(Sm) + d - PRECISION;
   if (drop <= 0) {
     const exact = Sm * unit + rm; // below 10¹⁵
-    return canonical(negative ? -exact : exact, e);
+    return new D(RAW, negative ? -exact : exact, e, null);
   }
   let keep: number;
   let half: number;
@@ -767,8 +819,6 @@ function sumSplit(a: number, b: number, d: number, e: number): D {
 
 /** a·10^ea + b·10^eb for safe-integer coefficients, rounded to PRECISION digits. */
 function add(a: number, ea: number, b: number, eb: number): D {
-  if (a === 0) return b === 0 ? canonical(a + b, 0) : make(b, eb);
-  if (b === 0) return make(a, ea);
   if (ea < eb) {
     const t = a; a = b; b = t;
     const te = ea; ea = eb; eb = te;
@@ -777,16 +827,21 @@ function add(a: number, ea: number, b: number, eb: number): D {
   const d = ea - eb;
   if (d === 0) {
     const s = a + b;
-    if (s <= MAX && s >= -MAX) return make(s, eb);
+    if (s < LIMIT && s > -LIMIT) return canonical(s, eb); // a zero sum is +0 (−0 only for −0 + −0), as decimal.js
+    if (s <= MAX && s >= -MAX) return roundLast(s, eb);
     const lo = (a - (s - (s - a))) + (b - (s - a)); // Knuth's two-sum error
     return roundPair(s, lo, eb);
   }
+  // A zero (always at exponent 0) is not scaled: the other operand is the sum, however far apart they are.
+  if (a === 0) return make(b, eb);
+  if (b === 0) return make(a, ea);
   if (d > 22) return roundExactly(BigInt(a) * 10n ** BigInt(d) + BigInt(b), eb);
   const scaled = a * POW10[d]!;
-  if (scaled <= MAX && scaled >= -MAX) {
-    const s = scaled + b;
-    if (s <= MAX && s >= -MAX) return make(s, eb);
-  }
+  const sum = scaled + b;
+  // Exact whenever it is below 10¹⁵: a·10^d that is not a float (its odd part above 2⁵³) exceeds 2⁵⁴, and
+  // then |fl(a·10^d) + b| ≥ 2⁵⁴ − 2⁵³. It ends in b's last digit, which is not a zero: no canonical() pass.
+  if (sum < LIMIT && sum > -LIMIT) return new D(RAW, sum, eb, null);
+  if (scaled <= MAX && scaled >= -MAX && sum <= MAX && sum >= -MAX) return roundLast(sum, eb);
   if (d <= 15 && a < LIMIT && a > -LIMIT && b < LIMIT && b > -LIMIT) return sumSplit(a, b, d, eb);
   // Beyond 2¹⁰⁴ (or with a 16-digit b) the error terms below could reach 2⁵³: the exact slow path.
   if (scaled >= 2e31 || scaled <= -2e31 || b >= 4.5e15 || b <= -4.5e15) return roundExactly(BigInt(a) * 10n ** BigInt(d) + BigInt(b), eb);
@@ -811,7 +866,7 @@ export function toDecimal(value: unknown): D | null {
   if (typeof value === 'string') {
     const text = value.trim();
     // Plain decimal text with a safe-integer coefficient (nearly every file) is read without the pattern.
-    if (parseDecimal(text)) return canonical(parsedC, parsedE);
+    if (parseDecimal(text)) return new D(RAW, parsedC, parsedE, null);
     if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(text)) return null;
     const d = new D(text);
     return d.isFinite() ? d : null;

@@ -56,6 +56,52 @@ describe('the engine decimal gives decimal.js results at 15 digits', { timeout: 
     }), RUNS);
   });
 
+  test('products and sums at the edges of their shortcuts: trailing zeros, cancelling, 10¹⁵, 2⁵⁰–2⁵³', () => {
+    // Coefficients m·2^i·5^j: products of two of them end in zeros (25 × 4, 125 × 8, 5⁹ × 2¹⁰).
+    const factor = fc.tuple(fc.constantFrom(1, 3, 7, 9, 13, 999, 12_345_679), fc.integer({ min: 0, max: 30 }), fc.integer({ min: 0, max: 14 }))
+      .map(([m, i, j]) => m * 2 ** i * 5 ** j).filter((c) => c <= Number.MAX_SAFE_INTEGER);
+    // Coefficients near a power of two or ten, where exactness or a shortcut's bound changes.
+    const edge = fc.tuple(fc.constantFrom(2 ** 31, 2 ** 49, 2 ** 50, 2 ** 52, 2 ** 53 - 1, 1e15, 1e14, 1e8, 1e7), fc.integer({ min: -40, max: 40 }))
+      .map(([base, step]) => Math.min(Number.MAX_SAFE_INTEGER, base + step)).filter((c) => c > 0);
+    const signed = (c: fc.Arbitrary<number>): fc.Arbitrary<string> => fc.tuple(fc.boolean(), c, fc.integer({ min: -20, max: 20 }))
+      .map(([negative, m, e]) => `${negative ? '-' : ''}${m}e${e}`);
+    const operand = fc.oneof(signed(factor), signed(edge), text);
+    fc.assert(fc.property(operand, operand, (a, b) => {
+      same(new D(a).times(b), new Ref(a).times(b));
+      same(new D(a).plus(b), new Ref(a).plus(b));
+      same(new D(a).minus(b), new Ref(a).minus(b));
+      if (!new Ref(b).isZero()) same(new D(a).div(b), new Ref(a).div(b));
+    }), RUNS);
+    // A product just below, at or above 10¹⁵ (b = ⌊10¹⁵ ÷ a⌋ + step).
+    fc.assert(fc.property(fc.integer({ min: 1, max: 99_999_999 }), fc.integer({ min: -2, max: 2 }), fc.integer({ min: -9, max: 9 }), (a, step, e) => {
+      const b = `${Math.floor(1e15 / a) + step}e${e}`;
+      same(new D(a).times(b), new Ref(a).times(b));
+    }), RUNS);
+    // a·10^d + b that cancels to zero or lands just below, at or above 10¹⁵, for every shift d up to 24.
+    fc.assert(fc.property(fc.integer({ min: 0, max: 24 }), fc.integer({ min: 1, max: 999_999_999_999_999 }), fc.integer({ min: -3, max: 3 }), fc.integer({ min: -12, max: 12 }), (d, b, step, e) => {
+      const scaled = new Ref(b).plus(step).negated();
+      same(new D(`${scaled.toFixed()}e${e}`).plus(`${b}e${e}`), new Ref(`${scaled.toFixed()}e${e}`).plus(`${b}e${e}`));
+      const high = new Ref(1e15).minus(b).dividedToIntegerBy(new Ref(10).pow(d)).plus(step);
+      if (high.isZero()) return;
+      const x = `${high.toFixed()}e${e + d}`;
+      same(new D(x).plus(`${b}e${e}`), new Ref(x).plus(`${b}e${e}`));
+      same(new D(`${b}e${e}`).minus(x), new Ref(`${b}e${e}`).minus(x));
+    }), RUNS);
+    // Whole coefficients just below 2⁵³ (x × 0.1 rounds to a whole number for some of them: …989).
+    for (const t of ['9007199254740989', '-9007199254740979', '9007199254740990', '9007199254740991']) {
+      same(new D(t).toNearest(1), new Ref(t).toNearest(1));
+      same(new D(t).toNearest('1e-3', 1), new Ref(t).toNearest('1e-3', 1));
+      same(new D(`${t}e-5`).toDecimalPlaces(2), new Ref(`${t}e-5`).toDecimalPlaces(2));
+    }
+    // Zeros, signed zeros and cancelling sums keep decimal.js's sign.
+    const zeros: [string, string][] = [['0', '-0'], ['-0', '-0'], ['5', '-5'], ['-5e3', '5e3'], ['0', '7e-30'], ['-0', '7e40'], ['123e20', '0']];
+    for (const [a, b] of zeros) {
+      same(new D(a).plus(b), new Ref(a).plus(b));
+      same(new D(a).minus(b), new Ref(a).minus(b));
+      same(new D(a).times(b), new Ref(a).times(b));
+    }
+  });
+
   test('division by a short figure (a stock strength): every dividend size, ties and exact quotients', () => {
     const dividend = fc.tuple(fc.boolean(), fc.oneof(fc.integer({ min: 1, max: 999 }), fc.integer({ min: 1, max: 999_999_999_999_999 })), fc.integer({ min: -16, max: 4 }))
       .map(([negative, c, e]) => `${negative ? '-' : ''}${c}e${e}`);
