@@ -93,6 +93,14 @@ export function perLitre(x: D, volumeMl: D): D {
   return volumeMl.isZero() ? ZERO : x.div(volumeMl).times(THOUSAND);
 }
 
+/** Zero of every species, in SPECIES_IDS order: the start of a bag's running totals (copied, never written). */
+const NO_SPECIES: readonly D[] = SPECIES_IDS.map(() => ZERO);
+
+/** The larger of two decimals (the first when they are equal), without D.max's argument list. */
+function larger(a: D, b: D): D {
+  return a.cmp(b) < 0 ? b : a;
+}
+
 function percentOf(grams: D, volumeMl: D): D {
   return volumeMl.isZero() ? ZERO : grams.div(volumeMl).times(100);
 }
@@ -138,18 +146,22 @@ function knownLine(like: readonly BagLine[], line: OrderLine, at: number): BagLi
 export function computeBag(order: Order, policy: Policy, like?: Bag): Bag {
   const weight = order.patient.weightKg;
   const known = like && like.order.patient.weightKg.eq(weight) ? like.lines : null;
-  // The lines in order; the fill line's volume needs the sum of the others, so it is put in its place after.
-  const lines: BagLine[] = [];
+  // The lines in order; the fill line's volume needs the sum of the others, so its place is kept and
+  // filled after (a splice would copy the array).
+  const lines: (BagLine | null)[] = [];
   let fillLine: OrderLine | null = null;
-  let fillAt = 0;
+  let fillAt = -1;
   let addedVolumeMl = ZERO;
   for (const line of order.lines) {
     if (line.kind === 'fill') {
-      fillLine = line;
-      fillAt = lines.length;
+      fillLine = line; // an order has one fill at most (parseOrder says so)
+      if (order.volumeMl && fillAt === -1) {
+        fillAt = lines.length;
+        lines.push(null);
+      }
       continue;
     }
-    let bagLine = known ? knownLine(known, line, lines.length + (fillLine ? 1 : 0)) : null;
+    let bagLine = known ? knownLine(known, line, lines.length) : null;
     if (!bagLine) {
       const perDay = perDayAmount(line, weight);
       bagLine = makeLine(line, lineVolumeMl(line, weight, perDay), perDay);
@@ -159,14 +171,14 @@ export function computeBag(order: Order, policy: Policy, like?: Bag): Bag {
   }
   let finalVolumeMl = addedVolumeMl;
   if (fillLine && order.volumeMl) {
-    const fillVolume = D.max(order.volumeMl.minus(addedVolumeMl), ZERO);
-    lines.splice(fillAt, 0, makeLine(fillLine, fillVolume, null));
-    finalVolumeMl = D.max(order.volumeMl, addedVolumeMl);
+    lines[fillAt] = makeLine(fillLine, larger(order.volumeMl.minus(addedVolumeMl), ZERO), null);
+    finalVolumeMl = larger(order.volumeMl, addedVolumeMl);
   }
+  const bagLines = lines as BagLine[]; // every place is taken now
 
   // Running totals in plain locals and an array by species index (records keyed by a variable are slow
   // to write); the species record is built once at the end.
-  const mmol: D[] = SPECIES_IDS.map(() => ZERO);
+  const mmol: D[] = NO_SPECIES.slice();
   let dextroseG = ZERO;
   let aminoAcidsG = ZERO;
   let lipidG = ZERO;
@@ -177,8 +189,8 @@ export function computeBag(order: Order, policy: Policy, like?: Bag): Bag {
   let particle = ZERO;
   let label = ZERO;
   let aluminum = ZERO;
-  for (let i = 0; i < lines.length; i++) {
-    const l = lines[i]!;
+  for (let i = 0; i < bagLines.length; i++) {
+    const l = bagLines[i]!;
     const v = l.volumeMl;
     const held = l.stock.perMlByIndex;
     for (let j = 0; j < held.length; j++) {
@@ -214,7 +226,7 @@ export function computeBag(order: Order, policy: Policy, like?: Bag): Bag {
   const nonProtein = dextroseKcal.plus(lipidKcal);
   const minutes = order.hours.times(60);
   return {
-    order, lines, finalVolumeMl, addedVolumeMl,
+    order, lines: bagLines, finalVolumeMl, addedVolumeMl,
     hours: order.hours,
     rateMlPerHour: finalVolumeMl.div(order.hours),
     speciesMmol, grams,
