@@ -33,6 +33,12 @@ const MAX = Number.MAX_SAFE_INTEGER;
 const LIMIT = 1e15;
 /** Powers of ten as doubles; exact up to 10²². */
 const POW10: readonly number[] = Array.from({ length: 40 }, (_, i) => Number(`1e${i}`));
+/**
+ * 10^−k as doubles (k ≤ 15), each within a relative 2⁻⁵³ of the true value: x·10^−k for x below 2⁵³ is
+ * then within x·10^−k·2⁻⁵² of x ÷ 10^k, under 0.25 for k ≥ 1, so its floor is the true floor or one
+ * off, and an exact remainder corrects it. A multiplication instead of a division (a quarter the latency).
+ */
+const INV10: readonly number[] = Array.from({ length: 16 }, (_, i) => Number(`1e-${i}`));
 const HALF_EVEN = 6;
 /** Veltkamp's splitter for doubles: 2²⁷ + 1. */
 const SPLITTER = 134217729;
@@ -167,11 +173,11 @@ function roundExactly(n: bigint, e: number): D {
 
 /**
  * m ÷ 10^shift rounded half-even, for 0 ≤ m < 10¹⁵ (a rounded coefficient) and 1 ≤ shift ≤ 15: the floor
- * from the float quotient, at most one off, and the remainder exact (every product here stays below 2⁵³).
+ * from m·10^−shift, at most one off (INV10), and the remainder exact (every product here stays below 2⁵³).
  */
 function shiftedHalfEven(m: number, shift: number): number {
   const d = POW10[shift]!;
-  let q = Math.floor(m / d);
+  let q = Math.floor(m * INV10[shift]!);
   let r = m - q * d;
   if (r < 0) { q -= 1; r += d; } else if (r >= d) { q += 1; r -= d; }
   const twice = r * 2;
@@ -191,11 +197,16 @@ function productShort(a: number, b: number, e: number): D {
   const negative = (a < 0) !== (b < 0);
   const A = Math.abs(a);
   const B = Math.abs(b);
-  const ah = Math.floor(A / 1e8); // exact: A/10⁸ below 10⁷ never rounds up to a whole number
+  // Each floor below comes from a multiplication by 10^−k, at most one off (INV10), and is corrected by
+  // its exact remainder.
+  let ah = Math.floor(A * 1e-8);
+  let al = A - ah * 1e8;
+  if (al < 0) { ah -= 1; al += 1e8; } else if (al >= 1e8) { ah += 1; al -= 1e8; }
   let hi = ah * B;
-  let lo = (A - ah * 1e8) * B;
-  const carry = Math.floor(lo / 1e8);
+  let lo = al * B;
+  let carry = Math.floor(lo * 1e-8);
   lo -= carry * 1e8;
+  if (lo < 0) { carry -= 1; lo += 1e8; } else if (lo >= 1e8) { carry += 1; lo -= 1e8; }
   hi += carry;
   if (hi < 1e7) {
     const p = hi * 1e8 + lo; // below 10¹⁵: exact
@@ -203,8 +214,9 @@ function productShort(a: number, b: number, e: number): D {
   }
   const k = digits(hi) - 7; // digits to drop, 1…8
   const d = POW10[k]!;
-  const ql = Math.floor(lo / d);
-  const r = lo - ql * d;
+  let ql = Math.floor(lo * INV10[k]!);
+  let r = lo - ql * d;
+  if (r < 0) { ql -= 1; r += d; } else if (r >= d) { ql += 1; r -= d; }
   let q = hi * POW10[8 - k]! + ql;
   if (r !== 0) {
     const twice = r * 2;
@@ -220,7 +232,7 @@ function productShort(a: number, b: number, e: number): D {
 function roundLast(n: number, e: number): D {
   const negative = n < 0;
   const m = negative ? -n : n;
-  let q = Math.floor(m / 10);
+  let q = Math.floor(m * 0.1); // at most one off (INV10)
   let r = m - q * 10;
   if (r < 0) { q -= 1; r += 10; } else if (r >= 10) { q += 1; r -= 10; }
   if (r > 5 || (r === 5 && odd(q))) q += 1;
@@ -616,7 +628,8 @@ export class D {
 
   /** toDecimalPlaces(dp) (half-even) as the nearest binary float, without making the rounded decimal. */
   toRoundedNumber(dp: number): number {
-    if (this.x !== null || this.e >= -dp || this.c === 0) return this.toDecimalPlaces(dp).toNumber();
+    if (this.x !== null) return this.toDecimalPlaces(dp).toNumber();
+    if (this.e >= -dp || this.c === 0) return this.toNumber(); // already at most dp places
     const shift = -dp - this.e;
     const magnitude = Math.abs(this.c);
     if (shift <= 15 && magnitude < LIMIT && dp <= 22) {
@@ -889,7 +902,7 @@ export function round(value: D, places: number): number {
   if (value.isZero()) return 0;
   if (!value.isFinite()) throw new Error('non-finite value reached the display edge');
   const n = value.toRoundedNumber(places);
-  return Object.is(n, -0) ? 0 : n;
+  return n === 0 ? 0 : n; // no −0
 }
 
 /**

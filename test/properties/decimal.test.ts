@@ -102,6 +102,41 @@ describe('the engine decimal gives decimal.js results at 15 digits', { timeout: 
     }
   });
 
+  test('floors taken by multiplying by 10^−k: exact multiples, one either side, and ties', () => {
+    // q·10^k + j for j = −1, 0, 1 and a tie (5·10^(k−1)): where a floor from x·10^−k could land one off.
+    const near = (q: number, k: number, j: number): number => q * 10 ** k + (j === 2 ? 5 * 10 ** (k - 1) : j);
+    const step = fc.constantFrom(-1, 0, 1, 2);
+    // A 15-digit figure times a short one past 2⁵³ (a long product split at 10⁸): A = ah·10⁸ + al with al
+    // at the edges, and short factors that make al·B a multiple of 10⁸ or of the dropped digits.
+    const long = fc.tuple(fc.integer({ min: 1_000_000, max: 9_999_999 }), fc.oneof(fc.constantFrom(0, 1, 99_999_999, 50_000_000, 12_500_000, 3_125_000), fc.integer({ min: 0, max: 99_999_999 })), fc.constantFrom(-1, 0, 1))
+      .map(([ah, al, j]) => Math.max(1, ah * 1e8 + al + j));
+    const short = fc.oneof(fc.constantFrom(2, 4, 8, 16, 32, 64, 128, 256, 5, 25, 125, 3125, 78_125, 1_953_125, 9_999_999, 1_048_576, 8_388_608), fc.integer({ min: 10, max: 9_999_999 }));
+    fc.assert(fc.property(long, short, fc.boolean(), fc.integer({ min: -12, max: 12 }), (a, b, negative, e) => {
+      const x = `${negative ? '-' : ''}${a}e${e}`;
+      same(new D(x).times(b), new Ref(x).times(b));
+      same(new D(b).times(x), new Ref(b).times(x));
+    }), RUNS);
+    // Products with a 16-digit coefficient (10¹⁵ to 2⁵³), whose last digit goes: ties, …0 and …9 around them.
+    fc.assert(fc.property(fc.integer({ min: 100_000_000_000_000, max: 900_719_925_474_098 }), step, fc.integer({ min: -9, max: 9 }), (q, j, e) => {
+      const n = near(q, 1, j);
+      if (n > Number.MAX_SAFE_INTEGER) return;
+      for (const [a, b] of [[n, 1], [n / 2, 2], [n / 5, 5]] as const) {
+        if (!Number.isInteger(a)) continue;
+        same(new D(`${a}e${e}`).times(b), new Ref(`${a}e${e}`).times(b));
+      }
+      same(new D(`${n}e${e}`).plus(`1e${e + 20}`), new Ref(`${n}e${e}`).plus(`1e${e + 20}`));
+    }), RUNS);
+    // Rounding a 15-digit result to 0–4 places with 1–15 digits dropped, at and beside multiples and ties.
+    fc.assert(fc.property(fc.integer({ min: 1, max: 15 }), fc.integer({ min: 0, max: 4 }), fc.integer({ min: 0, max: 999_999_999_999_999 }), step, fc.boolean(), (k, dp, seed, j, negative) => {
+      const n = near(Math.floor(seed / 10 ** k), k, j);
+      if (n <= 0 || n >= 1e15) return;
+      const t = `${negative ? '-' : ''}${n}e${-k - dp}`;
+      expect(Object.is(new D(t).toRoundedNumber(dp), new Ref(t).toDecimalPlaces(dp).toNumber())).toBe(true);
+      expect(new D(t).toScaledInteger(dp)).toBe(new Ref(t).toDecimalPlaces(dp).times(new Ref(10).pow(dp)).toNumber());
+      same(new D(t).toDecimalPlaces(dp), new Ref(t).toDecimalPlaces(dp));
+    }), RUNS);
+  });
+
   test('division by a short figure (a stock strength): every dividend size, ties and exact quotients', () => {
     const dividend = fc.tuple(fc.boolean(), fc.oneof(fc.integer({ min: 1, max: 999 }), fc.integer({ min: 1, max: 999_999_999_999_999 })), fc.integer({ min: -16, max: 4 }))
       .map(([negative, c, e]) => `${negative ? '-' : ''}${c}e${e}`);
