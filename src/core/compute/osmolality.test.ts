@@ -58,7 +58,7 @@ describe('osmotic-coefficient estimate', () => {
     expect(osmoticCoefficientEstimate(bag).notes.join(' ')).toContain('Amino acids 10% injection (without added electrolytes); Calcium gluconate 10% injection');
   });
 
-  it('names each bag\'s own stocks, whatever bags came before (a shorter or longer run of the same stocks)', () => {
+  it('names the stocks counted as ideal in line order, once per line, for each bag on its own', () => {
     const aa = { product: 'amino-acids-10', amount: 500, unit: 'mL' as const };
     const ca = { product: 'calcium-gluconate-10', amount: 10, unit: 'mL' as const };
     const note = (lines: typeof aa[]) => osmoticCoefficientEstimate(bagOf({ age: 'adult', weightKg: 70, lines })).notes[1];

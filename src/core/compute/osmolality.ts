@@ -98,61 +98,13 @@ function stockTerms(product: Product): StockTerms {
 }
 
 /**
- * The stocks of one bag counted as ideal, in line order, as a path through a tree of the runs seen so far:
- * each node keeps its note, so bags that name the same stocks share one string, written once.
- */
-interface UncountedRun {
-  /** The stocks' names, "; " between them. */
-  readonly names: string;
-  /** The note the estimate shows for this run. */
-  readonly note: string;
-  /** The next stock of each longer run seen that starts with this one (a few at most)… */
-  readonly nextProducts: Product[];
-  /** …and that run, at the same place. */
-  readonly nextRuns: UncountedRun[];
-}
-
-// Runs by their first stock, held weakly: a run dies with its catalog's products. Past the cap, a run is
-// made and not kept (a note is then written per bag, as it would be without the tree).
-const uncountedRuns = new WeakMap<Product, UncountedRun>();
-const MAX_KEPT_RUNS = 4096;
-let keptRuns = 0;
-
-function makeRun(names: string): UncountedRun {
-  return { names, note: `No coefficient in the table, counted as ideal (φ = 1): ${names}.`, nextProducts: [], nextRuns: [] };
-}
-
-/** The run `run` (null: none yet) followed by one more stock. */
-function extendRun(run: UncountedRun | null, product: Product): UncountedRun {
-  if (run === null) {
-    let first = uncountedRuns.get(product);
-    if (first === undefined) {
-      first = makeRun(product.name);
-      if (keptRuns < MAX_KEPT_RUNS) {
-        keptRuns++;
-        uncountedRuns.set(product, first);
-      }
-    }
-    return first;
-  }
-  const at = run.nextProducts.indexOf(product);
-  if (at >= 0) return run.nextRuns[at]!;
-  const longer = makeRun(`${run.names}; ${product.name}`);
-  if (keptRuns < MAX_KEPT_RUNS) {
-    keptRuns++;
-    run.nextProducts.push(product);
-    run.nextRuns.push(longer);
-  }
-  return longer;
-}
-
-/**
  * Osmotic-coefficient estimate: each line's ideal particles × the φ of its salt (glucose 1.01),
  * ÷ the final volume. Particles with no φ in the table count as ideal (φ = 1) and are named.
  * Example: 1000 mL holding 154 mmol NaCl (308 ideal mOsm) → 308 × 0.93 = 286.4.
  */
 export function osmoticCoefficientEstimate(bag: Bag): OsmolalityEstimate {
-  let uncounted: UncountedRun | null = null;
+  // The stocks counted as ideal, named in line order ("; " between names); null while there are none.
+  let uncounted: string | null = null;
   // The particles are summed by coefficient first (the table's salts, glucose, and ideal), then each sum
   // is multiplied by its φ once: Σ φ·xᵢ = φ·Σ xᵢ, with one multiplication per coefficient, not per line.
   const byCoefficient: D[] = COEFFICIENTS.map(() => ZERO);
@@ -176,7 +128,7 @@ export function osmoticCoefficientEstimate(bag: Bag): OsmolalityEstimate {
       if (t.ion >= 0) byCoefficient[t.ion] = byCoefficient[t.ion]!.plus(ionMOsm);
       else ideal = ideal.plus(ionMOsm);
     }
-    if (t.idealNutrient || (t.ion < 0 && ionMOsm.gt(ZERO))) uncounted = extendRun(uncounted, l.product);
+    if (t.idealNutrient || (t.ion < 0 && ionMOsm.gt(ZERO))) uncounted = uncounted === null ? l.product.name : `${uncounted}; ${l.product.name}`;
   }
   // A zero sum, or φ = 1, would change no digit of the total: both are left out.
   let total = ideal;
@@ -185,7 +137,7 @@ export function osmoticCoefficientEstimate(bag: Bag): OsmolalityEstimate {
     const x = byCoefficient[k]!;
     if (!x.isZero()) total = total.plus(x.times(COEFFICIENTS[k]!.phi));
   }
-  const notes = uncounted === null ? [COEFFICIENT_NOTE] : [COEFFICIENT_NOTE, uncounted.note];
+  const notes = uncounted === null ? [COEFFICIENT_NOTE] : [COEFFICIENT_NOTE, `No coefficient in the table, counted as ideal (φ = 1): ${uncounted}.`];
   return {
     method: 'osmotic-coefficient',
     label: 'Osmotic-coefficient estimate',
