@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { D } from './decimal.ts';
-import { isSpeciesId, isPhosphateSpecies, isCharged, SPECIES, type SpeciesId } from './species.ts';
+import { isSpeciesId, isPhosphateSpecies, isCharged, SPECIES, SPECIES_IDS, type SpeciesId } from './species.ts';
 import { decimal, decimalReader, optionalDecimal, parseWith } from './schema.ts';
 import { NUTRIENT_ROLES, type Catalog, type Product } from './catalog.ts';
 import type { Problem, Result } from './problems.ts';
@@ -188,30 +188,76 @@ function bindLine(line: LineInput, index: number, catalog: Catalog, problems: Pr
   return { kind: 'amount', index, product, amount: line.amount, unit: line.unit, species, note };
 }
 
+/** Whether a value is one of LINE_UNITS (a switch: an array search compares the text with each unit). */
+function isLineUnit(value: unknown): value is LineUnit {
+  switch (value) {
+    case 'mL': case 'g': case 'mEq': case 'mmol': case 'mL/kg': case 'g/kg': case 'mEq/kg': case 'mmol/kg': return true;
+    default: return false;
+  }
+}
+
+/**
+ * What plainLine asks of a product, answered once per catalog: whether g lines may name it, and the
+ * species an mmol or an mEq line may count in it (bindLine's tests, in the same order of precedence).
+ */
+interface PlainProduct {
+  product: Product;
+  /** A dextrose, amino-acid or lipid stock: a g line may name it. */
+  grams: boolean;
+  /** The species it holds (perMl above zero): an mmol line may count these. */
+  mmol: ReadonlySet<string>;
+  /** The held species that have a charge and are not phosphate: an mEq line may count these. */
+  mEq: ReadonlySet<string>;
+}
+
+// Keyed by the catalog's product map: a catalog is never edited in place (an edited one is a new catalog),
+// so the answers last as long as the map.
+const plainProducts = new WeakMap<ReadonlyMap<string, Product>, ReadonlyMap<string, PlainProduct>>();
+
+function plainProductsOf(catalog: Catalog): ReadonlyMap<string, PlainProduct> {
+  let index = plainProducts.get(catalog.byId);
+  if (index === undefined) {
+    const entries = new Map<string, PlainProduct>();
+    for (const [id, product] of catalog.byId) {
+      const held = SPECIES_IDS.filter((s) => product.perMl[s]?.gt(0));
+      entries.set(id, {
+        product,
+        grams: NUTRIENT_ROLES.includes(product.role),
+        mmol: new Set(held),
+        mEq: new Set(held.filter((s) => !isPhosphateSpecies(s) && isCharged(s))),
+      });
+    }
+    index = entries;
+    plainProducts.set(catalog.byId, index);
+  }
+  return index;
+}
+
 /**
  * A well-formed order line read and bound to its product in one step, as bindLine binds the schema's
  * output; null for anything bindLine or the schema would report (parseOrder then takes the full path).
  */
-function plainLine(input: unknown, index: number, catalog: Catalog): OrderLine | null {
+function plainLine(input: unknown, index: number, products: ReadonlyMap<string, PlainProduct>): OrderLine | null {
   if (!isRecord(input)) return null;
   const { product: id, amount, unit, species: named, fill, note } = input;
   if (typeof id !== 'string' || id.length === 0) return null;
   if (!isOptionalString(named) || !isOptionalString(note) || (fill !== undefined && typeof fill !== 'boolean')) return null;
-  if (unit !== undefined && !isOneOf(LINE_UNITS, unit)) return null;
+  if (unit !== undefined && !isLineUnit(unit)) return null;
   const value = amount === undefined ? undefined : readAmount(amount);
   if (value === null) return null;
-  const product = catalog.byId.get(id);
-  if (!product) return null;
+  const entry = products.get(id);
+  if (entry === undefined) return null;
+  const product = entry.product;
   if (fill) return value === undefined && unit === undefined ? { kind: 'fill', index, product, note: note ?? null } : null;
   if (value === undefined || unit === undefined) return null;
   const base = baseUnit(unit);
-  if (base === 'g' && !NUTRIENT_ROLES.includes(product.role)) return null;
+  if (base === 'g' && !entry.grams) return null;
   let species: SpeciesId | null = null;
   if (base === 'mEq' || base === 'mmol') {
     const s = named ?? product.orderSpecies;
-    if (s === null || !isSpeciesId(s) || !product.perMl[s]?.gt(0)) return null;
-    if (base === 'mEq' && (isPhosphateSpecies(s) || !isCharged(s))) return null;
-    species = s;
+    // Both sets hold species ids only: a name in one is a species the product holds.
+    if (s === null || !(base === 'mEq' ? entry.mEq : entry.mmol).has(s)) return null;
+    species = s as SpeciesId;
   } else if (named !== undefined) return null;
   return { kind: 'amount', index, product, amount: value, unit, species, note: note ?? null };
 }
@@ -242,10 +288,11 @@ export function readPlainOrder(input: unknown, catalog: Catalog): Order | null {
   if (h === null) return null;
   const fileLines = input.lines as unknown[];
   if (fileLines.length === 0) return null;
+  const products = plainProductsOf(catalog);
   const lines: OrderLine[] = [];
   let filled = false;
   for (let i = 0; i < fileLines.length; i++) {
-    const line = plainLine(fileLines[i], i, catalog);
+    const line = plainLine(fileLines[i], i, products);
     if (line === null) return null;
     if (line.kind === 'fill') {
       if (filled || volume === null) return null;

@@ -20,9 +20,12 @@ export function decimalReader(bound: Bound = {}): (value: unknown) => D | null {
   const gt = bound.gt === undefined ? null : new D(bound.gt);
   const min = bound.min === undefined ? null : new D(bound.min);
   const max = bound.max === undefined ? null : new D(bound.max);
+  // A lower bound of zero (most amounts) is settled by the coefficient's sign.
+  const minZero = min !== null && min.isZero();
   return (value) => {
     const d = toDecimal(value);
-    if (d === null || (gt !== null && d.lte(gt)) || (min !== null && d.lt(min)) || (max !== null && d.gt(max))) return null;
+    if (d === null || (gt !== null && d.lte(gt)) || (max !== null && d.gt(max))) return null;
+    if (min !== null && (minZero && d.x === null ? d.c < 0 : d.lt(min))) return null;
     return d;
   };
 }

@@ -57,6 +57,21 @@ describe('osmotic-coefficient estimate', () => {
     ] });
     expect(osmoticCoefficientEstimate(bag).notes.join(' ')).toContain('Amino acids 10% injection (without added electrolytes); Calcium gluconate 10% injection');
   });
+
+  it('names the stocks counted as ideal in line order, once per line, for each bag on its own', () => {
+    const aa = { product: 'amino-acids-10', amount: 500, unit: 'mL' as const };
+    const ca = { product: 'calcium-gluconate-10', amount: 10, unit: 'mL' as const };
+    const note = (lines: typeof aa[]) => osmoticCoefficientEstimate(bagOf({ age: 'adult', weightKg: 70, lines })).notes[1];
+    const prefix = 'No coefficient in the table, counted as ideal (φ = 1): ';
+    const A = 'Amino acids 10% injection (without added electrolytes)';
+    const C = 'Calcium gluconate 10% injection (0.465 mEq Ca per mL)';
+    const both = `${prefix}${A}; ${C}.`;
+    expect(note([aa, ca])).toBe(both);
+    expect(note([aa])).toBe(`${prefix}${A}.`);
+    expect(note([ca, aa])).toBe(`${prefix}${C}; ${A}.`);
+    expect(note([aa, ca, ca])).toBe(`${prefix}${A}; ${C}; ${C}.`);
+    expect(note([aa, ca])).toBe(both);
+  });
 });
 
 describe('Pereira-da-Silva 2004 equation (field guide §1.5, from memory)', () => {

@@ -103,7 +103,8 @@ function stockTerms(product: Product): StockTerms {
  * Example: 1000 mL holding 154 mmol NaCl (308 ideal mOsm) → 308 × 0.93 = 286.4.
  */
 export function osmoticCoefficientEstimate(bag: Bag): OsmolalityEstimate {
-  let uncounted: string[] | null = null;
+  // The stocks counted as ideal, named in line order ("; " between names); null while there are none.
+  let uncounted: string | null = null;
   // The particles are summed by coefficient first (the table's salts, glucose, and ideal), then each sum
   // is multiplied by its φ once: Σ φ·xᵢ = φ·Σ xᵢ, with one multiplication per coefficient, not per line.
   const byCoefficient: D[] = COEFFICIENTS.map(() => ZERO);
@@ -127,7 +128,7 @@ export function osmoticCoefficientEstimate(bag: Bag): OsmolalityEstimate {
       if (t.ion >= 0) byCoefficient[t.ion] = byCoefficient[t.ion]!.plus(ionMOsm);
       else ideal = ideal.plus(ionMOsm);
     }
-    if (t.idealNutrient || (t.ion < 0 && ionMOsm.gt(ZERO))) (uncounted ??= []).push(l.product.name);
+    if (t.idealNutrient || (t.ion < 0 && ionMOsm.gt(ZERO))) uncounted = uncounted === null ? l.product.name : `${uncounted}; ${l.product.name}`;
   }
   // A zero sum, or φ = 1, would change no digit of the total: both are left out.
   let total = ideal;
@@ -136,8 +137,7 @@ export function osmoticCoefficientEstimate(bag: Bag): OsmolalityEstimate {
     const x = byCoefficient[k]!;
     if (!x.isZero()) total = total.plus(x.times(COEFFICIENTS[k]!.phi));
   }
-  const notes = [COEFFICIENT_NOTE];
-  if (uncounted !== null) notes.push(`No coefficient in the table, counted as ideal (φ = 1): ${uncounted.join('; ')}.`);
+  const notes = uncounted === null ? [COEFFICIENT_NOTE] : [COEFFICIENT_NOTE, `No coefficient in the table, counted as ideal (φ = 1): ${uncounted}.`];
   return {
     method: 'osmotic-coefficient',
     label: 'Osmotic-coefficient estimate',
@@ -190,12 +190,17 @@ export function pereiraDaSilvaEstimate(bag: Bag): OsmolalityEstimate | null {
 
 const UNDERESTIMATE_NOTE = 'Calculated osmolarity under-estimates measured osmolality in concentrated PN, more so as concentration rises (Borenstein 2018: below the measured value in every one of 363 neonatal bags; JPEN 2016: by up to 16.7-33.2% in concentrated pediatric PN). These are estimates only: measure on an osmometer when it matters.';
 
+/** Whether the Pereira-da-Silva equation applies: it was fitted on neonatal bags only. */
+function isNeonatal(bag: Bag): boolean {
+  const age = bag.order.patient.ageGroup;
+  return age === 'term-neonate' || age === 'preterm-neonate';
+}
+
 /** Every estimate that applies to the bag (Pereira-da-Silva for neonatal bags only); null for an empty bag. */
 export function predictOsmolality(bag: Bag): PredictedOsmolality | null {
   if (bag.finalVolumeMl.isZero()) return null;
   const estimates = [osmoticCoefficientEstimate(bag)];
-  const age = bag.order.patient.ageGroup;
-  if (age === 'term-neonate' || age === 'preterm-neonate') {
+  if (isNeonatal(bag)) {
     const p = pereiraDaSilvaEstimate(bag);
     if (p) estimates.push(p);
   }
@@ -218,15 +223,22 @@ export const predictedOsmolalityReportSchema = z.object({
   note: z.string(),
 });
 
-/** `information.predictedOsmolality` of a bag's report, rounded at this edge to 0.1 mOsm/kg; null when nothing is predicted. */
+type EstimateReport = z.infer<typeof predictedOsmolalityReportSchema>['estimates'][number];
+
+/** One estimate as the report shows it, rounded to 0.1 mOsm/kg. */
+function reportEstimate(e: OsmolalityEstimate): EstimateReport {
+  return { method: e.method, label: e.label, value: round(e.value, 1), unit: e.unit, source: e.source, status: e.status, notes: e.notes };
+}
+
+/**
+ * `information.predictedOsmolality` of a bag's report, rounded at this edge to 0.1 mOsm/kg; null when
+ * nothing is predicted. The estimates predictOsmolality gives, each made into its report entry directly.
+ */
 export function predictedOsmolalityReport(bag: Bag): z.infer<typeof predictedOsmolalityReportSchema> | null {
-  const p = predictOsmolality(bag);
-  if (!p) return null;
-  const estimates: z.infer<typeof predictedOsmolalityReportSchema>['estimates'] = [];
-  for (const e of p.estimates) {
-    estimates.push({ method: e.method, label: e.label, value: round(e.value, 1), unit: e.unit, source: e.source, status: e.status, notes: e.notes });
-  }
-  return { estimates, note: p.note };
+  if (bag.finalVolumeMl.isZero()) return null;
+  const coefficient = reportEstimate(osmoticCoefficientEstimate(bag));
+  const p = isNeonatal(bag) ? pereiraDaSilvaEstimate(bag) : null;
+  return { estimates: p ? [coefficient, reportEstimate(p)] : [coefficient], note: UNDERESTIMATE_NOTE };
 }
 
 /** The report field for a bag (see predictedOsmolalityReport); `{}` when nothing is predicted. */
