@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { D, round } from './decimal.ts';
-import { fmt, fmtTrim } from './format.ts';
+import { fmt, fmtScaled, fmtTrim } from './format.ts';
 
 describe('fmt and fmtTrim', () => {
   it('round half to even (IEEE 754 roundTiesToEven): 2.345 → 2.34, 2.355 → 2.36, 0.5 → 0, 1.5 → 2', () => {
@@ -38,5 +38,22 @@ describe('fmt and fmtTrim', () => {
       const value = new D(text);
       expect(fmt(value, places)).toBe(new D(round(value, places)).toFixed(places));
     }), { numRuns: 4000 });
+  });
+
+  it('writes a kept text the same as a new one, each time it is shown (law)', () => {
+    // Figures below 16384 units of their last place at 0–3 places are kept after their first showing:
+    // every later showing, of either sign, must read as the report's number does.
+    const figure = fc.tuple(fc.integer({ min: -20_000, max: 20_000 }), fc.integer({ min: 0, max: 3 }));
+    fc.assert(fc.property(figure, fc.integer({ min: 0, max: 3 }), ([units, exponent], places) => {
+      const value = new D(`${units}e-${exponent}`);
+      const expected = new D(round(value, places)).toFixed(places);
+      expect(fmt(value, places)).toBe(expected);
+      expect(fmt(value, places)).toBe(expected);
+    }), { numRuns: 4000 });
+    expect(fmt(new D('29.41'), 2)).toBe('29.41');
+    expect(fmt(new D('-163.83'), 2)).toBe('-163.83');
+    expect(fmt(new D('163.84'), 2)).toBe('163.84');
+    expect(fmtScaled(2941, 2)).toBe('29.41');
+    expect(fmtScaled(-5, 3)).toBe('-0.005');
   });
 });

@@ -30,22 +30,26 @@ export function fmt(value: D, places: number): string {
   // The common case, written straight from the rounded digits: the value rounded to `places` as a whole
   // number of 10^−places below 10¹⁵ (so the report's number holds it exactly, as shown() requires).
   const q = value.toScaledInteger(places);
-  if (q < 1e15 && q > -1e15 && places < ZEROS.length) {
-    const m = q < 0 ? -q : q;
-    let text: string;
-    if (places === 0) text = String(m);
-    else if (places <= FRACTION_PLACES) {
-      const unit = POWERS[places]!;
-      const whole = Math.floor(m / unit);
-      text = String(whole) + fraction(places, m - whole * unit);
-    } else {
-      text = String(m);
-      if (text.length <= places) text = ZEROS[places + 1 - text.length]! + text;
-      text = `${text.slice(0, text.length - places)}.${text.slice(text.length - places)}`;
-    }
-    return q < 0 ? `-${text}` : text;
-  }
+  if (q < 1e15 && q > -1e15 && places < ZEROS.length) return fmtScaled(q, places);
   return shown(value, places).toFixed(places);
+}
+
+/**
+ * fmt's text for a value whose `toScaledInteger(places)` is `q`, for a q below 10¹⁵ in size and fewer than
+ * 24 places: for a caller that has q already. Example: 2941 at 2 places → "29.41".
+ */
+export function fmtScaled(q: number, places: number): string {
+  const m = q < 0 ? -q : q;
+  let text: string;
+  if (places <= FRACTION_PLACES && m < KEPT_LIMIT) text = keptText(m, places);
+  else if (places === 0) text = String(m);
+  else if (places <= FRACTION_PLACES) text = written(m, places);
+  else {
+    text = String(m);
+    if (text.length <= places) text = ZEROS[places + 1 - text.length]! + text;
+    text = `${text.slice(0, text.length - places)}.${text.slice(text.length - places)}`;
+  }
+  return q < 0 ? `-${text}` : text;
 }
 
 // ".00" … ".99" and so on for 1–3 places, each written the first time it is shown and kept: display text
@@ -61,6 +65,37 @@ function fraction(places: number, digits: number): string {
     const d = String(digits);
     text = `.${ZEROS[places - d.length]!}${d}`;
     kept[digits] = text;
+  }
+  return text;
+}
+
+/** The text of m whole 10^−places (0–3 places), without a sign. */
+function written(m: number, places: number): string {
+  if (places === 0) return String(m);
+  const unit = POWERS[places]!;
+  const whole = Math.floor(m / unit);
+  return String(whole) + fraction(places, m - whole * unit);
+}
+
+// Whole texts of the figures most shown (below KEPT_LIMIT units of their last place, at 0–3 places: doses,
+// concentrations, volumes), each written the first time it is shown and kept, in blocks of KEPT_BLOCK
+// made on first use: a bag's figures repeat across orders, and a kept text is neither converted nor joined.
+const KEPT_LIMIT = 1 << 14;
+const KEPT_BITS = 8;
+const KEPT_BLOCK = 1 << KEPT_BITS;
+const KEPT_TEXTS: (string | undefined)[][][] = POWERS.map(() => new Array<(string | undefined)[]>(KEPT_LIMIT >> KEPT_BITS));
+
+function keptText(m: number, places: number): string {
+  const blocks = KEPT_TEXTS[places]!;
+  let block = blocks[m >> KEPT_BITS];
+  if (block === undefined) {
+    block = new Array<string | undefined>(KEPT_BLOCK);
+    blocks[m >> KEPT_BITS] = block;
+  }
+  let text = block[m & (KEPT_BLOCK - 1)];
+  if (text === undefined) {
+    text = written(m, places);
+    block[m & (KEPT_BLOCK - 1)] = text;
   }
   return text;
 }
