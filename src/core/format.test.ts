@@ -49,11 +49,15 @@ describe('fmt and fmtTrim', () => {
       const expected = new D(round(value, places)).toFixed(places);
       expect(fmt(value, places)).toBe(expected);
       expect(fmt(value, places)).toBe(expected);
+      expect(fmtTrim(value, places)).toBe(new D(round(value, places)).toString());
     }), { numRuns: 4000 });
     expect(fmt(new D('29.41'), 2)).toBe('29.41');
     expect(fmt(new D('-163.83'), 2)).toBe('-163.83');
     expect(fmt(new D('163.84'), 2)).toBe('163.84');
     expect(fmtScaled(2941, 2)).toBe('29.41');
     expect(fmtScaled(-5, 3)).toBe('-0.005');
+    expect(fmtTrim(new D('68'), 3)).toBe('68');
+    expect(fmtTrim(new D('-2.50'), 3)).toBe('-2.5');
+    expect(fmtTrim(new D('1200'), 1)).toBe('1200');
   });
 });

@@ -102,5 +102,16 @@ function keptText(m: number, places: number): string {
 
 /** Like fmt, but drops trailing zeros (for amounts as the user typed them). */
 export function fmtTrim(value: D, maxPlaces: number): string {
+  // As fmt: the rounded value's digits, here with its trailing zeros (and then the point) left off.
+  let q = value.toScaledInteger(maxPlaces);
+  if (q < 1e15 && q > -1e15 && maxPlaces < ZEROS.length) {
+    let places = maxPlaces;
+    // q ÷ 10 is whole exactly when q is a multiple of ten (below 10¹⁵, a tenth's remainder shows).
+    for (let tenth = q / 10; places > 0 && q !== 0 && tenth === Math.floor(tenth); tenth = q / 10) {
+      q = tenth;
+      places--;
+    }
+    return fmtScaled(q, q === 0 ? 0 : places);
+  }
   return shown(value, maxPlaces).toString();
 }
