@@ -41,9 +41,7 @@ export function fmt(value: D, places: number): string {
 export function fmtScaled(q: number, places: number): string {
   const m = q < 0 ? -q : q;
   let text: string;
-  if (places <= FRACTION_PLACES && m < KEPT_LIMIT) text = keptText(m, places);
-  else if (places === 0) text = String(m);
-  else if (places <= FRACTION_PLACES) text = written(m, places);
+  if (places <= FRACTION_PLACES) text = written(m, places);
   else {
     text = String(m);
     if (text.length <= places) text = ZEROS[places + 1 - text.length]! + text;
@@ -75,29 +73,6 @@ function written(m: number, places: number): string {
   const unit = POWERS[places]!;
   const whole = Math.floor(m / unit);
   return String(whole) + fraction(places, m - whole * unit);
-}
-
-// Whole texts of the figures most shown (below KEPT_LIMIT units of their last place, at 0–3 places: doses,
-// concentrations, volumes), each written the first time it is shown and kept, in blocks of KEPT_BLOCK
-// made on first use: a bag's figures repeat across orders, and a kept text is neither converted nor joined.
-const KEPT_LIMIT = 1 << 14;
-const KEPT_BITS = 8;
-const KEPT_BLOCK = 1 << KEPT_BITS;
-const KEPT_TEXTS: (string | undefined)[][][] = POWERS.map(() => new Array<(string | undefined)[]>(KEPT_LIMIT >> KEPT_BITS));
-
-function keptText(m: number, places: number): string {
-  const blocks = KEPT_TEXTS[places]!;
-  let block = blocks[m >> KEPT_BITS];
-  if (block === undefined) {
-    block = new Array<string | undefined>(KEPT_BLOCK);
-    blocks[m >> KEPT_BITS] = block;
-  }
-  let text = block[m & (KEPT_BLOCK - 1)];
-  if (text === undefined) {
-    text = written(m, places);
-    block[m & (KEPT_BLOCK - 1)] = text;
-  }
-  return text;
 }
 
 /** Like fmt, but drops trailing zeros (for amounts as the user typed them). */
