@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { D, round } from './decimal.ts';
-import { fmt, fmtTrim } from './format.ts';
+import { fmt, fmtScaled, fmtTrim } from './format.ts';
 
 describe('fmt and fmtTrim', () => {
   it('round half to even (IEEE 754 roundTiesToEven): 2.345 → 2.34, 2.355 → 2.36, 0.5 → 0, 1.5 → 2', () => {
@@ -38,5 +38,24 @@ describe('fmt and fmtTrim', () => {
       const value = new D(text);
       expect(fmt(value, places)).toBe(new D(round(value, places)).toFixed(places));
     }), { numRuns: 4000 });
+  });
+
+  it('writes small figures and their trimmed form as the report holds them, whatever their sign (law)', () => {
+    // The figures most shown (a few units of their last place, 0–3 places), written from their scaled digits.
+    const figure = fc.tuple(fc.integer({ min: -20_000, max: 20_000 }), fc.integer({ min: 0, max: 3 }));
+    fc.assert(fc.property(figure, fc.integer({ min: 0, max: 3 }), ([units, exponent], places) => {
+      const value = new D(`${units}e-${exponent}`);
+      const expected = new D(round(value, places)).toFixed(places);
+      expect(fmt(value, places)).toBe(expected);
+      expect(fmtTrim(value, places)).toBe(new D(round(value, places)).toString());
+    }), { numRuns: 4000 });
+    expect(fmt(new D('29.41'), 2)).toBe('29.41');
+    expect(fmt(new D('-163.83'), 2)).toBe('-163.83');
+    expect(fmt(new D('163.84'), 2)).toBe('163.84');
+    expect(fmtScaled(2941, 2)).toBe('29.41');
+    expect(fmtScaled(-5, 3)).toBe('-0.005');
+    expect(fmtTrim(new D('68'), 3)).toBe('68');
+    expect(fmtTrim(new D('-2.50'), 3)).toBe('-2.5');
+    expect(fmtTrim(new D('1200'), 1)).toBe('1200');
   });
 });

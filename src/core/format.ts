@@ -30,22 +30,24 @@ export function fmt(value: D, places: number): string {
   // The common case, written straight from the rounded digits: the value rounded to `places` as a whole
   // number of 10^−places below 10¹⁵ (so the report's number holds it exactly, as shown() requires).
   const q = value.toScaledInteger(places);
-  if (q < 1e15 && q > -1e15 && places < ZEROS.length) {
-    const m = q < 0 ? -q : q;
-    let text: string;
-    if (places === 0) text = String(m);
-    else if (places <= FRACTION_PLACES) {
-      const unit = POWERS[places]!;
-      const whole = Math.floor(m / unit);
-      text = String(whole) + fraction(places, m - whole * unit);
-    } else {
-      text = String(m);
-      if (text.length <= places) text = ZEROS[places + 1 - text.length]! + text;
-      text = `${text.slice(0, text.length - places)}.${text.slice(text.length - places)}`;
-    }
-    return q < 0 ? `-${text}` : text;
-  }
+  if (q < 1e15 && q > -1e15 && places < ZEROS.length) return fmtScaled(q, places);
   return shown(value, places).toFixed(places);
+}
+
+/**
+ * fmt's text for a value whose `toScaledInteger(places)` is `q`, for a q below 10¹⁵ in size and fewer than
+ * 24 places: for a caller that has q already. Example: 2941 at 2 places → "29.41".
+ */
+export function fmtScaled(q: number, places: number): string {
+  const m = q < 0 ? -q : q;
+  let text: string;
+  if (places <= FRACTION_PLACES) text = written(m, places);
+  else {
+    text = String(m);
+    if (text.length <= places) text = ZEROS[places + 1 - text.length]! + text;
+    text = `${text.slice(0, text.length - places)}.${text.slice(text.length - places)}`;
+  }
+  return q < 0 ? `-${text}` : text;
 }
 
 // ".00" … ".99" and so on for 1–3 places, each written the first time it is shown and kept: display text
@@ -65,7 +67,26 @@ function fraction(places: number, digits: number): string {
   return text;
 }
 
+/** The text of m whole 10^−places (0–3 places), without a sign. */
+function written(m: number, places: number): string {
+  if (places === 0) return String(m);
+  const unit = POWERS[places]!;
+  const whole = Math.floor(m / unit);
+  return String(whole) + fraction(places, m - whole * unit);
+}
+
 /** Like fmt, but drops trailing zeros (for amounts as the user typed them). */
 export function fmtTrim(value: D, maxPlaces: number): string {
+  // As fmt: the rounded value's digits, here with its trailing zeros (and then the point) left off.
+  let q = value.toScaledInteger(maxPlaces);
+  if (q < 1e15 && q > -1e15 && maxPlaces < ZEROS.length) {
+    let places = maxPlaces;
+    // q ÷ 10 is whole exactly when q is a multiple of ten (below 10¹⁵, a tenth's remainder shows).
+    for (let tenth = q / 10; places > 0 && q !== 0 && tenth === Math.floor(tenth); tenth = q / 10) {
+      q = tenth;
+      places--;
+    }
+    return fmtScaled(q, q === 0 ? 0 : places);
+  }
   return shown(value, maxPlaces).toString();
 }

@@ -2,7 +2,7 @@ import { roundDivided, ZERO } from '../decimal.ts';
 import { fmt } from '../format.ts';
 import { ruleFor, type Rule } from '../policy.ts';
 import type { Bag, BagLine } from '../compute/bag.ts';
-import { fromRule, type Check } from '../findings.ts';
+import { fromRule, NO_LINES, type Check } from '../findings.ts';
 import { kept, settled, DEFER, numberText, type ScreenWords } from './limits.ts';
 
 /** How many contributors a message names. */
@@ -82,8 +82,11 @@ export const aluminum: Check = (bag, policy) => {
   const missingText = missing === '' ? '' : ` No aluminum value in the catalog for: ${missing} — the figure is a lower bound.`;
   const atOrOver = settled(value).gte(rule.max);
   const words = kept(limitWords, rule, limitWordsOf);
-  const lines: number[] = [];
-  if (atOrOver) for (const l of top) lines.push(l.line.index);
+  let lines = NO_LINES;
+  if (atOrOver && top.length > 0) {
+    lines = [];
+    for (const l of top) lines.push(l.line.index);
+  }
   return [fromRule('aluminum', rule, {
     value, limit: rule.max, decimals: 2,
     message: atOrOver

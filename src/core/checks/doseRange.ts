@@ -1,5 +1,5 @@
 import type { D } from '../decimal.ts';
-import { fmt } from '../format.ts';
+import { fmt, fmtScaled } from '../format.ts';
 import type { AgeGroup } from '../order.ts';
 import { doseRangeFor, DOSE_NUTRIENTS, type DoseNutrient, type Policy, type Rule } from '../policy.ts';
 import { perKgOf, type Bag } from '../compute/bag.ts';
@@ -154,14 +154,14 @@ function rangeFinding(bag: Bag, screen: DoseScreen, lines: InBagGroups): Finding
   if (value.isZero() && !rule.min) return null;
   // A dose is screened as it is shown: measured volumes (10 mEq calcium → 21.5 mL → 9.9975 mEq) that
   // display as the limit meet it, so the pharmacist never reads "10.00 against 10" as a warning. The
-  // shown dose is the whole number q of 10^−decimals; fmt writes the same digits from the dose itself.
+  // shown dose is the whole number q of 10^−decimals, and its text is written from q (as fmt would).
   const q = value.toScaledInteger(decimals);
   let crossed: 'min' | 'max' | null;
   let text: string;
   if (screen.scaled && q < 1e15 && q > -1e15) {
     const { minScaled, maxScaled } = screen;
     crossed = minScaled !== null && q < minScaled ? 'min' : maxScaled !== null && q > maxScaled ? 'max' : null;
-    text = fmt(value, decimals);
+    text = fmtScaled(q, decimals);
   } else {
     const shown = value.toDecimalPlaces(decimals);
     crossed = outside(shown, rule);

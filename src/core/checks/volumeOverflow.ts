@@ -19,9 +19,9 @@ export const volumeOverflow: Check = (bag, policy) => {
 /** No line fills the bag and the lines add up to less than the ordered volume (`volume-shortfall`). */
 export const volumeShortfall: Check = (bag, policy) => {
   const ordered = bag.order.volumeMl;
+  if (!ordered || !bag.addedVolumeMl.lt(ordered)) return [];
   const rule = ruleFor(policy, 'volume-shortfall', bag.order.patient.ageGroup);
-  const hasFill = bag.order.lines.some((l) => l.kind === 'fill');
-  if (!ordered || !rule || hasFill || !bag.addedVolumeMl.lt(ordered)) return [];
+  if (!rule || bag.order.lines.some((l) => l.kind === 'fill')) return [];
   return [fromRule('volume-shortfall', rule, {
     value: bag.addedVolumeMl, limit: ordered, decimals: 1,
     message: `The lines add up to ${fmt(bag.addedVolumeMl, 1)} mL, less than the ordered ${fmt(ordered, 1)} mL, and no line fills the bag: add a fill line or correct the volume. Figures use ${fmt(bag.finalVolumeMl, 1)} mL.`,
