@@ -31,7 +31,7 @@ export function baseUnit(unit: LineUnit): BaseUnit {
   }
 }
 export function isPerKg(unit: LineUnit): boolean {
-  return unit === 'mL/kg' || unit === 'g/kg' || unit === 'mEq/kg' || unit === 'mmol/kg';
+  return baseUnit(unit) !== unit;
 }
 
 /**
@@ -188,12 +188,11 @@ function bindLine(line: LineInput, index: number, catalog: Catalog, problems: Pr
   return { kind: 'amount', index, product, amount: line.amount, unit: line.unit, species, note };
 }
 
-/** Whether a value is one of LINE_UNITS (a switch: an array search compares the text with each unit). */
+const LINE_UNIT_SET: ReadonlySet<unknown> = new Set(LINE_UNITS);
+
+/** Whether a value is one of LINE_UNITS (a set: an array search compares the text with each unit). */
 function isLineUnit(value: unknown): value is LineUnit {
-  switch (value) {
-    case 'mL': case 'g': case 'mEq': case 'mmol': case 'mL/kg': case 'g/kg': case 'mEq/kg': case 'mmol/kg': return true;
-    default: return false;
-  }
+  return LINE_UNIT_SET.has(value);
 }
 
 /**

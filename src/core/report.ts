@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { isUnroundedProduct, round, roundDivided, type D } from './decimal.ts';
-import { SPECIES, SPECIES_IDS, isCharged, speciesRecord, type SpeciesId } from './species.ts';
+import { SPECIES, SPECIES_IDS, isCharged, speciesRecord, speciesRow, type SpeciesId } from './species.ts';
 import { perLitreOf, mmHgPerMOsmPerL, type Bag, type BagLine } from './compute/bag.ts';
 import { ruleFor, SEVERITIES, type Policy } from './policy.ts';
 import type { Catalog } from './catalog.ts';
@@ -109,20 +109,12 @@ const mEqPerLRow: number[] = SPECIES_IDS.map(() => 0);
 const perDayRow: number[] = SPECIES_IDS.map(() => 0);
 const perKgRow: number[] = SPECIES_IDS.map(() => 0);
 
-/**
- * The bag's mmol of each species, in SPECIES_IDS order, read by name: every record has one shape, so each
- * read is a load at a fixed place (a loop reading `speciesMmol[s]` by a changing key looks each one up).
- */
-function mmolInOrder(m: Bag['speciesMmol']): readonly D[] {
-  return [m.Na, m.K, m.Ca, m.Mg, m.Cl, m.acetate, m.gluconate, m.lactate, m.sulfate, m.phosphate, m.glycerophosphate, m.glycerol];
-}
-
 /** Every species' totals, each rounded once; a species the bag does not hold is 0 throughout. */
 function speciesTotals(bag: Bag): SpeciesTotals {
   const n = SPECIES_IDS.length;
   const V = bag.finalVolumeMl;
   const w = bag.order.patient.weightKg;
-  const mmolRow = mmolInOrder(bag.speciesMmol);
+  const mmolRow = speciesRow(bag.speciesMmol);
   for (let k = 0; k < n; k++) {
     const mmol = mmolRow[k]!;
     if (mmol.isZero()) {

@@ -19,6 +19,15 @@ export function speciesRecord<T>(v: readonly T[]): Record<SpeciesId, T> {
   };
 }
 
+/**
+ * A record's values in SPECIES_IDS order (speciesRecord's inverse). Read by name: every record has one
+ * shape, so each read is a load at a fixed place, where a loop reading `record[s]` by a changing key
+ * looks each one up.
+ */
+export function speciesRow<T>(r: Readonly<Record<SpeciesId, T>>): T[] {
+  return [r.Na, r.K, r.Ca, r.Mg, r.Cl, r.acetate, r.gluconate, r.lactate, r.sulfate, r.phosphate, r.glycerophosphate, r.glycerol];
+}
+
 /** One row of the species table. */
 export interface SpeciesInfo {
   id: SpeciesId;

@@ -230,15 +230,10 @@ function reportEstimate(e: OsmolalityEstimate): EstimateReport {
   return { method: e.method, label: e.label, value: round(e.value, 1), unit: e.unit, source: e.source, status: e.status, notes: e.notes };
 }
 
-/**
- * `information.predictedOsmolality` of a bag's report, rounded at this edge to 0.1 mOsm/kg; null when
- * nothing is predicted. The estimates predictOsmolality gives, each made into its report entry directly.
- */
+/** `information.predictedOsmolality` of a bag's report, rounded at this edge to 0.1 mOsm/kg; null when nothing is predicted. */
 export function predictedOsmolalityReport(bag: Bag): z.infer<typeof predictedOsmolalityReportSchema> | null {
-  if (bag.finalVolumeMl.isZero()) return null;
-  const coefficient = reportEstimate(osmoticCoefficientEstimate(bag));
-  const p = isNeonatal(bag) ? pereiraDaSilvaEstimate(bag) : null;
-  return { estimates: p ? [coefficient, reportEstimate(p)] : [coefficient], note: UNDERESTIMATE_NOTE };
+  const p = predictOsmolality(bag);
+  return p ? { estimates: p.estimates.map(reportEstimate), note: p.note } : null;
 }
 
 /** The report field for a bag (see predictedOsmolalityReport); `{}` when nothing is predicted. */
